@@ -1,0 +1,146 @@
+// The browser-mode host: serves the built renderer and answers its intents over
+// HTTP on the loopback interface, through the same `invokeHandler` the Electron
+// shell uses. It lets the app run where no Electron binary is installed, and lets
+// Playwright drive the real UI against the real handlers.
+import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
+import { readFile, stat } from 'node:fs/promises';
+import { extname, join, normalize, resolve, sep } from 'node:path';
+import { invokeHandler } from './handlers.ts';
+import { HandlerError } from './handler-error.ts';
+
+/** Only the loopback interface: the host must never be reachable from another machine. */
+export const LOOPBACK_ADDRESS = '127.0.0.1';
+
+/** Largest request body accepted by the intent endpoint (intents carry small JSON). */
+const MAX_REQUEST_BYTES = 1 << 20;
+
+const CONTENT_TYPES: Record<string, string> = {
+  '.html': 'text/html; charset=utf-8',
+  '.js': 'text/javascript; charset=utf-8',
+  '.css': 'text/css; charset=utf-8',
+  '.svg': 'image/svg+xml',
+  '.png': 'image/png',
+  '.json': 'application/json',
+  '.woff2': 'font/woff2',
+  '.otf': 'font/otf',
+  '.ico': 'image/x-icon',
+};
+
+export interface BrowserHost {
+  server: Server;
+  url: string;
+  close(): Promise<void>;
+}
+
+/**
+ * Starts serving `rendererDir` (the output of the renderer build) and the intent
+ * endpoint `POST /api/<intent>` on 127.0.0.1:`port` (0 picks a free port).
+ */
+export async function startBrowserHost(rendererDir: string, port: number): Promise<BrowserHost> {
+  const root = resolve(rendererDir);
+  await assertRendererBuilt(root);
+  const server = createServer((request, response) => {
+    route(root, request, response).catch((error: unknown) => {
+      sendJson(response, 500, { error: { kind: 'internal', message: `The host failed: ${String(error)}` } });
+    });
+  });
+  await new Promise<void>((resolveListen, rejectListen) => {
+    server.once('error', rejectListen);
+    server.listen(port, LOOPBACK_ADDRESS, () => resolveListen());
+  });
+  const address = server.address();
+  const boundPort = typeof address === 'object' && address ? address.port : port;
+  return {
+    server,
+    url: `http://${LOOPBACK_ADDRESS}:${boundPort}/`,
+    close: () => new Promise((done) => server.close(() => done())),
+  };
+}
+
+async function assertRendererBuilt(root: string): Promise<void> {
+  try {
+    await stat(join(root, 'index.html'));
+  } catch {
+    throw new Error(`The renderer has not been built (no ${join(root, 'index.html')}). Run "npm run build" first.`);
+  }
+}
+
+async function route(root: string, request: IncomingMessage, response: ServerResponse): Promise<void> {
+  const url = new URL(request.url ?? '/', `http://${LOOPBACK_ADDRESS}`);
+  if (url.pathname.startsWith('/api/')) {
+    await answerIntent(url.pathname.slice('/api/'.length), request, response);
+    return;
+  }
+  if (request.method !== 'GET' && request.method !== 'HEAD') {
+    sendJson(response, 405, { error: { kind: 'method', message: 'Only GET is served here.' } });
+    return;
+  }
+  await serveFile(root, url.pathname, response);
+}
+
+async function answerIntent(intent: string, request: IncomingMessage, response: ServerResponse): Promise<void> {
+  if (request.method !== 'POST') {
+    sendJson(response, 405, { error: { kind: 'method', message: 'Intents are sent with POST.' } });
+    return;
+  }
+  let args: unknown;
+  try {
+    args = JSON.parse((await readBody(request)) || 'null');
+  } catch {
+    sendJson(response, 400, { error: { kind: 'bad-arguments', message: 'The request body was not valid JSON.' } });
+    return;
+  }
+  try {
+    const result = await invokeHandler(intent, args, { host: 'browser' });
+    sendJson(response, 200, { result });
+  } catch (error) {
+    if (error instanceof HandlerError) {
+      sendJson(response, 400, { error: error.toPayload() });
+      return;
+    }
+    throw error;
+  }
+}
+
+function readBody(request: IncomingMessage): Promise<string> {
+  return new Promise((resolveBody, rejectBody) => {
+    const chunks: Buffer[] = [];
+    let size = 0;
+    request.on('data', (chunk: Buffer) => {
+      size += chunk.length;
+      if (size > MAX_REQUEST_BYTES) {
+        rejectBody(new Error('request too large'));
+        request.destroy();
+        return;
+      }
+      chunks.push(chunk);
+    });
+    request.on('end', () => resolveBody(Buffer.concat(chunks).toString('utf8')));
+    request.on('error', rejectBody);
+  });
+}
+
+async function serveFile(root: string, pathname: string, response: ServerResponse): Promise<void> {
+  const relative = pathname === '/' ? 'index.html' : decodeURIComponent(pathname).replace(/^\/+/, '');
+  const filePath = normalize(join(root, relative));
+  if (filePath !== root && !filePath.startsWith(root + sep)) {
+    sendJson(response, 403, { error: { kind: 'forbidden', message: 'Outside the app.' } });
+    return;
+  }
+  try {
+    const body = await readFile(filePath);
+    response.writeHead(200, {
+      'content-type': CONTENT_TYPES[extname(filePath)] ?? 'application/octet-stream',
+      'cache-control': 'no-store',
+      'x-content-type-options': 'nosniff',
+    });
+    response.end(body);
+  } catch {
+    sendJson(response, 404, { error: { kind: 'not-found', message: `No such file: ${pathname}` } });
+  }
+}
+
+function sendJson(response: ServerResponse, status: number, body: unknown): void {
+  response.writeHead(status, { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store' });
+  response.end(JSON.stringify(body));
+}

@@ -1,0 +1,59 @@
+// The host's handlers: plain functions, one per intent, shared by the Electron main
+// process, the browser-mode host and the tests. They never touch Electron, so they
+// run and are tested in plain Node.
+import { APP_NAME, APP_VERSION } from './app-identity.ts';
+import { INTENT_NAMES, type AppInfo, type HostIntents, type HostKind, type IntentName } from './api-contract.ts';
+import { HandlerError } from './handler-error.ts';
+
+/** What a handler knows about the host it runs in. */
+export interface HostContext {
+  host: HostKind;
+}
+
+type Handler<K extends IntentName> = (
+  args: HostIntents[K]['args'],
+  context: HostContext,
+) => Promise<HostIntents[K]['result']> | HostIntents[K]['result'];
+
+type HandlerTable = { [K in IntentName]: Handler<K> };
+
+function appInfo(_args: Record<string, never>, context: HostContext): AppInfo {
+  return { name: APP_NAME, version: APP_VERSION, host: context.host, platform: process.platform };
+}
+
+const HANDLERS: HandlerTable = { appInfo };
+
+/** Argument checks per intent; each returns the validated arguments or throws. */
+const VALIDATORS: { [K in IntentName]: (raw: unknown) => HostIntents[K]['args'] } = {
+  appInfo: (raw) => expectEmptyObject('appInfo', raw),
+};
+
+function expectEmptyObject(intent: string, raw: unknown): Record<string, never> {
+  if (raw === undefined || raw === null) return {};
+  if (typeof raw !== 'object' || Array.isArray(raw) || Object.keys(raw).length > 0) {
+    throw new HandlerError('bad-arguments', `The request "${intent}" takes no arguments, but some were sent. This is a bug in the app: please report it.`);
+  }
+  return {};
+}
+
+function isIntentName(name: string): name is IntentName {
+  return (INTENT_NAMES as readonly string[]).includes(name);
+}
+
+/**
+ * Validates `rawArgs` for the named intent and runs its handler.
+ * Throws `HandlerError` for an unknown intent or bad arguments; never runs a
+ * handler on unvalidated input.
+ */
+export async function invokeHandler(name: string, rawArgs: unknown, context: HostContext): Promise<unknown> {
+  if (!isIntentName(name)) {
+    throw new HandlerError('unknown-intent', `The app asked its host for "${name}", which it does not offer. This is a bug in the app: please report it.`);
+  }
+  return dispatch(name, rawArgs, context);
+}
+
+async function dispatch<K extends IntentName>(name: K, rawArgs: unknown, context: HostContext): Promise<HostIntents[K]['result']> {
+  const args = VALIDATORS[name](rawArgs);
+  const handler = HANDLERS[name] as Handler<K>;
+  return handler(args, context);
+}

@@ -1,0 +1,44 @@
+// The renderer's one way to reach its host. In the Electron window the preload
+// script provides `window.stemline`; in browser mode the same intents travel as
+// JSON over HTTP to the browser-mode host. Either way the renderer sees one
+// typed object and host errors arrive as `HostError` with the user-facing message.
+import type { HostErrorPayload, HostIntents, IntentName, StemlineHostApi } from '../../electron/api-contract.ts';
+
+/** A failure the host reported; `message` is written for the user. */
+export class HostError extends Error {
+  readonly kind: string;
+  constructor(payload: HostErrorPayload) {
+    super(payload.message);
+    this.name = 'HostError';
+    this.kind = payload.kind;
+  }
+}
+
+declare global {
+  interface Window {
+    stemline?: StemlineHostApi;
+  }
+}
+
+async function postIntent<K extends IntentName>(intent: K, args: HostIntents[K]['args']): Promise<HostIntents[K]['result']> {
+  let response: Response;
+  try {
+    response = await fetch(`./api/${intent}`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify(args),
+    });
+  } catch {
+    throw new HostError({ kind: 'host-unreachable', message: 'Stemline’s host is not answering. Is the "npm start" terminal still running?' });
+  }
+  const reply = (await response.json()) as { result?: HostIntents[K]['result']; error?: HostErrorPayload };
+  if (reply.error) throw new HostError(reply.error);
+  return reply.result as HostIntents[K]['result'];
+}
+
+const browserHostApi: StemlineHostApi = {
+  appInfo: (args) => postIntent('appInfo', args),
+};
+
+/** The host API for this window: the preload bridge in Electron, HTTP in a browser. */
+export const host: StemlineHostApi = window.stemline ?? browserHostApi;

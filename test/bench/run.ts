@@ -1,0 +1,66 @@
+// `npm run bench`: every benchmark suite, each task warmed up and repeated, printed
+// as median time per operation with its spread (median absolute deviation), and written
+// to bench-results/bench.json for comparison between runs. Speed is proven here,
+// never in a timed unit test.
+import { Bench } from 'tinybench';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { join } from 'node:path';
+import { cpus } from 'node:os';
+import { APP_VERSION } from '../../electron/app-identity.ts';
+import { geometryBenchmarks } from './geometry.bench.ts';
+
+/** Minimum measuring time per task: enough samples for a stable median on a busy 2-core machine. */
+const MEASURE_MS = 400;
+/** Warm-up time per task so the JIT has compiled the hot paths before measuring. */
+const WARMUP_MS = 150;
+
+interface TaskReport {
+  suite: string;
+  task: string;
+  medianMs: number;
+  /** Median absolute deviation of the per-operation times. */
+  madMs: number;
+  p99Ms: number;
+  samples: number;
+}
+
+function formatMs(ms: number): string {
+  if (ms < 0.001) return `${(ms * 1e6).toFixed(0)} ns`;
+  if (ms < 1) return `${(ms * 1e3).toFixed(2)} µs`;
+  return `${ms.toFixed(2)} ms`;
+}
+
+const suites: Array<{ name: string; register: (bench: Bench) => void }> = [
+  { name: 'geometry', register: geometryBenchmarks },
+];
+
+const reports: TaskReport[] = [];
+for (const suite of suites) {
+  const bench = new Bench({ time: MEASURE_MS, warmupTime: WARMUP_MS });
+  suite.register(bench);
+  await bench.run();
+  console.log(`\n${suite.name}`);
+  for (const task of bench.tasks) {
+    const result = task.result;
+    if (result.state !== 'completed') {
+      throw new Error(`Benchmark "${task.name}" did not complete (${result.state}${'error' in result ? `: ${String(result.error)}` : ''}).`);
+    }
+    const report: TaskReport = {
+      suite: suite.name,
+      task: task.name,
+      medianMs: result.latency.p50,
+      madMs: result.latency.mad,
+      p99Ms: result.latency.p99,
+      samples: result.latency.samplesCount,
+    };
+    reports.push(report);
+    console.log(`  ${task.name.padEnd(52)} median ${formatMs(report.medianMs).padStart(10)}  ± ${formatMs(report.madMs).padStart(9)} (MAD)  p99 ${formatMs(report.p99Ms)}  ${report.samples} runs`);
+  }
+}
+
+const outDir = fileURLToPath(new URL('../../bench-results', import.meta.url));
+mkdirSync(outDir, { recursive: true });
+const machine = { cores: cpus().length, cpu: cpus()[0]?.model ?? 'unknown', node: process.version };
+writeFileSync(join(outDir, 'bench.json'), `${JSON.stringify({ version: APP_VERSION, machine, date: new Date().toISOString(), reports }, null, 2)}\n`);
+console.log(`\nReport written to ${join(outDir, 'bench.json')}`);

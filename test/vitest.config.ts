@@ -1,0 +1,18 @@
+// Unit and property tests for core/, electron/ handlers and the CLI. Playwright specs
+// (test/browser/*.spec.ts) are deliberately not included: they run under Playwright.
+import { defineConfig } from 'vitest/config';
+import { fileURLToPath } from 'node:url';
+
+const root = fileURLToPath(new URL('..', import.meta.url));
+
+export default defineConfig({
+  root,
+  test: {
+    include: ['test/**/*.test.ts'],
+    exclude: ['test/browser/**', 'node_modules/**'],
+    environment: 'node',
+    testTimeout: 60_000,
+    reporters: ['default', ['junit', { suiteName: 'stemline-unit' }]],
+    outputFile: { junit: 'test-results/unit-junit.xml' },
+  },
+});
