@@ -98,11 +98,9 @@ export function binarize(raster: GreyRaster, options: BinarizeOptions = {}): Bin
     level = otsuLevel(histogram);
     method = 'otsu';
   }
-  const isInk = new Uint8Array(GREY_LEVELS);
-  for (let value = 0; value <= level; value++) isInk[value] = 1;
   const source = grey.data;
   const ink = new Uint8Array(source.length);
-  for (let i = 0; i < source.length; i++) ink[i] = isInk[source[i]!]!;
+  for (let i = 0; i < source.length; i++) ink[i] = source[i]! <= level ? 1 : 0;
   let inkPixels = 0;
   for (let value = 0; value <= level; value++) inkPixels += histogram[value]!;
 

@@ -75,10 +75,13 @@ export function cleanupMask(mask: InkMask, options: CleanupOptions = {}): Cleanu
 
   let specksRemoved = 0;
   let removedPixels = 0;
+  let inputInkPixels = -1; // known once ink has been labelled
   if (speckAreaPx > 0) {
     const ink = labelInkComponents(mask);
+    inputInkPixels = 0;
     const erase = new Uint8Array(ink.count + 1);
     for (let id = 1; id <= ink.count; id++) {
+      inputInkPixels += ink.area[id]!;
       if (ink.area[id]! < speckAreaPx) {
         erase[id] = 1;
         specksRemoved++;
@@ -120,8 +123,11 @@ export function cleanupMask(mask: InkMask, options: CleanupOptions = {}): Cleanu
     }
   }
 
-  let inkPixels = 0;
-  for (let i = 0; i < cleaned.length; i++) inkPixels += cleaned[i]!;
+  if (inputInkPixels < 0) {
+    inputInkPixels = 0;
+    for (let i = 0; i < mask.data.length; i++) inputInkPixels += mask.data[i]!;
+  }
+  const inkPixels = inputInkPixels - removedPixels + filledPixels;
   if (specksRemoved > 0) notes.push(`Removed ${specksRemoved} speck(s) smaller than ${speckAreaMm2} mm² (${formatPixels(speckAreaPx)} px), ${removedPixels} px of ink in all.`);
   if (pinholesFilled > 0) notes.push(`Filled ${pinholesFilled} pinhole(s) smaller than ${pinholeAreaMm2} mm² (${formatPixels(pinholeAreaPx)} px), ${filledPixels} px in all.`);
   return { mask: afterSpecks, resolution, speckAreaPx, pinholeAreaPx, specksRemoved, pinholesFilled, inkPixels, notes };

@@ -6,6 +6,7 @@
 // which is smooth, costs a few kilobytes, and is only ever evaluated at boundary
 // crossings.
 
+import { GREY_LEVELS } from './histogram.ts';
 import type { PaperAndInkLevels } from './threshold-otsu.ts';
 import type { GreyRaster, InkMask } from './types.ts';
 
@@ -125,8 +126,6 @@ export function localIsoLevelField(raster: GreyRaster, mask: InkMask, windowSize
   return { kind: 'tiled', tileSize, columns, rows, levels };
 }
 
-/** Grey levels in an 8-bit raster. */
-const GREY_LEVELS = 256;
 /** Bins of one tile's two class histograms (ink, then paper). */
 const CLASS_HISTOGRAM_BINS = 2 * GREY_LEVELS;
 

@@ -114,10 +114,11 @@ interface RowDraft {
  *    horizontally in the same row (a colon) form one letter, and each such letter
  *    joins the row nearest to it.
  * 6. Rows are ordered top to bottom and letters left to right within a row.
- * 7. A row's baseline is the median of the bottoms of its letters' bodies. The median
- *    is the usual robust choice in layout analysis: it is exact as long as fewer than
- *    half of the row's letters descend below the baseline (g j p q y) or overshoot it
- *    noticeably; a row of only descenders gets the descender line.
+ * 7. A row's baseline is the median of the bottoms of its letters' bodies (common
+ *    practice in layout analysis: the median has a 50 % breakdown point). It is exact
+ *    as long as fewer than half of the row's letters descend below the baseline
+ *    (g j p q y) or overshoot it noticeably; a row of only descenders gets the
+ *    descender line. Marks (a cedilla) and punctuation do not take part.
  * 8. Characters of `options.characters` are assigned in reading order; surplus letters
  *    get null and surplus characters are reported in `notes`.
  */

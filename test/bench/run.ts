@@ -9,6 +9,8 @@ import { join } from 'node:path';
 import { cpus } from 'node:os';
 import { APP_VERSION } from '../../electron/app-identity.ts';
 import { geometryBenchmarks } from './geometry.bench.ts';
+import { rasterBenchmarks, rasterThroughputReport } from './raster.bench.ts';
+import { pageBenchmarks, pageReport } from './page.bench.ts';
 
 /** Minimum measuring time per task: enough samples for a stable median on a busy 2-core machine. */
 const MEASURE_MS = 400;
@@ -31,13 +33,33 @@ function formatMs(ms: number): string {
   return `${ms.toFixed(2)} ms`;
 }
 
-const suites: Array<{ name: string; register: (bench: Bench) => void }> = [
+/** Repetitions for whole-page tasks (each takes about a second): enough for a stable median. */
+const PAGE_ITERATIONS = 12;
+
+interface Suite {
+  name: string;
+  register: (bench: Bench) => void;
+  /** Overrides for heavy suites, e.g. fewer iterations. */
+  options?: { iterations?: number; time?: number; warmupIterations?: number };
+  /** Extra lines printed after the suite (throughputs, splits). */
+  report?: (bench: Bench) => string[] | Promise<string[]>;
+}
+
+const suites: Suite[] = [
   { name: 'geometry', register: geometryBenchmarks },
+  { name: 'page', register: pageBenchmarks, options: { iterations: PAGE_ITERATIONS, time: 0, warmupIterations: 2 }, report: pageReport },
+  { name: 'raster steps', register: rasterBenchmarks, options: { iterations: PAGE_ITERATIONS, time: 0, warmupIterations: 2 }, report: rasterThroughputReport },
 ];
 
+/** Peak resident memory of this process so far, in MiB (getrusage's maxrss is in KiB on Linux). */
+function peakResidentMiB(): number {
+  return process.resourceUsage().maxRSS / 1024;
+}
+
 const reports: TaskReport[] = [];
+const notes: Array<{ suite: string; lines: string[]; peakResidentMiB: number }> = [];
 for (const suite of suites) {
-  const bench = new Bench({ time: MEASURE_MS, warmupTime: WARMUP_MS });
+  const bench = new Bench({ time: MEASURE_MS, warmupTime: WARMUP_MS, ...suite.options });
   suite.register(bench);
   await bench.run();
   console.log(`\n${suite.name}`);
@@ -55,12 +77,17 @@ for (const suite of suites) {
       samples: result.latency.samplesCount,
     };
     reports.push(report);
-    console.log(`  ${task.name.padEnd(52)} median ${formatMs(report.medianMs).padStart(10)}  ± ${formatMs(report.madMs).padStart(9)} (MAD)  p99 ${formatMs(report.p99Ms)}  ${report.samples} runs`);
+    console.log(`  ${task.name.padEnd(60)} median ${formatMs(report.medianMs).padStart(10)}  ± ${formatMs(report.madMs).padStart(9)} (MAD)  p99 ${formatMs(report.p99Ms)}  ${report.samples} runs`);
   }
+  const extra = suite.report ? await suite.report(bench) : [];
+  for (const line of extra) console.log(`  ${line}`);
+  const peak = peakResidentMiB();
+  console.log(`  peak resident memory so far: ${peak.toFixed(0)} MiB`);
+  notes.push({ suite: suite.name, lines: extra, peakResidentMiB: peak });
 }
 
 const outDir = fileURLToPath(new URL('../../bench-results', import.meta.url));
 mkdirSync(outDir, { recursive: true });
 const machine = { cores: cpus().length, cpu: cpus()[0]?.model ?? 'unknown', node: process.version };
-writeFileSync(join(outDir, 'bench.json'), `${JSON.stringify({ version: APP_VERSION, machine, date: new Date().toISOString(), reports }, null, 2)}\n`);
+writeFileSync(join(outDir, 'bench.json'), `${JSON.stringify({ version: APP_VERSION, machine, date: new Date().toISOString(), reports, notes }, null, 2)}\n`);
 console.log(`\nReport written to ${join(outDir, 'bench.json')}`);

@@ -1,43 +1,45 @@
-// Reference fonts for the raster tests come from Debian packages. A missing font skips
-// its tests with a message naming the package, except under STEMLINE_REQUIRE_ALL=1
-// (CI), where a missing font must fail loudly instead of passing by skipping.
+// Reference-font suites for the raster tests. The fonts come from Debian packages, and
+// test/support/require-tool.ts decides what a missing one means: a skipped suite that
+// names the package to install, or — under STEMLINE_REQUIRE_ALL=1 (CI) — a failure,
+// so CI never passes by skipping. This file only adapts that to vitest suites.
 
-import { existsSync } from 'node:fs';
 import { describe, it } from 'vitest';
+import { checkRequirement, REFERENCE_FONTS, type Requirement } from '../support/require-tool.ts';
 
-export interface ReferenceFont {
+export interface ReferenceFont extends Requirement {
+  /** Human name used in test titles. */
   readonly label: string;
-  readonly path: string;
-  /** The Debian package that installs `path`. */
-  readonly debianPackage: string;
 }
 
-export const CANTARELL: ReferenceFont = { label: 'Cantarell Regular', path: '/usr/share/fonts/opentype/cantarell/Cantarell-Regular.otf', debianPackage: 'fonts-cantarell' };
-export const LIBERTINE: ReferenceFont = { label: 'Linux Libertine Regular', path: '/usr/share/fonts/opentype/linux-libertine/LinLibertine_R.otf', debianPackage: 'fonts-linuxlibertine' };
-export const DEJAVU_SANS: ReferenceFont = { label: 'DejaVu Sans', path: '/usr/share/fonts/truetype/dejavu/DejaVuSans.ttf', debianPackage: 'fonts-dejavu-core' };
-
-function requireAll(): boolean {
-  return process.env['STEMLINE_REQUIRE_ALL'] === '1';
-}
+export const CANTARELL: ReferenceFont = { ...REFERENCE_FONTS.cantarellRegular, label: 'Cantarell Regular' };
+export const LIBERTINE: ReferenceFont = { ...REFERENCE_FONTS.libertineRegular, label: 'Linux Libertine Regular' };
+export const DEJAVU_SANS: ReferenceFont = { ...REFERENCE_FONTS.dejavuSans, label: 'DejaVu Sans' };
 
 /**
- * `describe(name, body)` when the font is installed. Otherwise a skipped suite whose
- * name says which Debian package to install — or, under STEMLINE_REQUIRE_ALL=1, a
- * suite with one failing test saying the same.
+ * `describe(name, body)` when the font is installed; otherwise a skipped suite whose
+ * title says which package to install, or, under STEMLINE_REQUIRE_ALL=1, a suite with
+ * one failing test carrying the same message. The body may load the font at
+ * collection time: it only runs when the font exists.
  */
 export function describeWithFont(name: string, font: ReferenceFont, body: () => void): void {
-  if (existsSync(font.path)) {
+  let check: ReturnType<typeof checkRequirement>;
+  try {
+    check = checkRequirement(font);
+  } catch (error) {
+    const message = error instanceof Error ? error.message : String(error);
+    describe(name, () => {
+      it('has its reference font installed', () => {
+        throw new Error(message);
+      });
+    });
+    return;
+  }
+  if (check.available) {
     describe(name, body);
     return;
   }
-  const message = `${font.label} is missing (${font.path}); install the Debian package ${font.debianPackage}`;
-  if (requireAll()) {
-    describe(name, () => {
-      it('has its reference font installed', () => {
-        throw new Error(`${message} (STEMLINE_REQUIRE_ALL=1 forbids skipping).`);
-      });
-    });
-  } else {
-    describe.skip(`${name} — skipped: ${message}`, body);
-  }
+  // The body is not collected: it would load the missing font.
+  describe.skip(`${name} — ${check.message}`, () => {
+    it('needs its reference font', () => undefined);
+  });
 }

@@ -46,6 +46,8 @@ describe('Sauvola thresholding on a shaded page', () => {
   it('recovers every letter, each with its counter, where a global threshold fails', () => {
     const mask = binarize(page, { method: 'sauvola', windowSize: 61 }).mask;
     expect(labelInkComponents(mask).count).toBe(RING_COUNT);
+    const rawSauvola = binarize(page, { method: 'sauvola', windowSize: 61, refineToLocalMidpoint: false }).mask;
+    expect(labelInkComponents(rawSauvola).count).toBe(RING_COUNT);
     const result = traceScan({ raster: page, dpiX: 300 }, { method: 'sauvola' });
     expect(result.contours.filter((contour) => contour.depth === 0)).toHaveLength(RING_COUNT);
     expect(result.contours.filter((contour) => contour.depth === 1)).toHaveLength(RING_COUNT);
