@@ -7,6 +7,7 @@ import sharp, { type Metadata } from 'sharp';
 import { readFile } from 'node:fs/promises';
 import { basename } from 'node:path';
 import { InputError } from './input-error.ts';
+import { readImageHeader } from '../../core/raster/image-header.ts';
 
 /**
  * Largest image accepted, in pixels. 200 megapixels is a US-letter page at about
@@ -67,7 +68,8 @@ export async function decodeScanBytes(bytes: Uint8Array, name: string): Promise<
     if (info.channels !== 1) throw new Error(`expected one channel, got ${info.channels}`);
     const raster = { width: info.width, height: info.height, data: new Uint8Array(data.buffer, data.byteOffset, data.byteLength) };
     const decoded: DecodedScan = { raster, bilevel: metadata.bitsPerSample === 1, format: metadata.format ?? 'unknown', notes };
-    if (metadata.density !== undefined && metadata.density > 0) decoded.dpi = metadata.density;
+    const dpi = recordedDpi(bytes, metadata);
+    if (dpi !== undefined) decoded.dpi = dpi;
     return decoded;
   } catch (error) {
     throw new InputError('image-corrupt', name, `${name}: the image data is damaged or incomplete (${describeSharpError(error)}). Export or scan it again.`);
@@ -92,6 +94,16 @@ async function readHeader(bytes: Uint8Array, name: string): Promise<Metadata> {
     throw new InputError('image-corrupt', name, `${name}: the image header gives no size. Export or scan it again.`);
   }
   return metadata;
+}
+
+/**
+ * The resolution the file itself records: PNG pHYs, JPEG JFIF density and WebP from
+ * the shared header reader (libvips reports 72 dpi for files that record nothing),
+ * TIFF from its resolution tags through sharp.
+ */
+function recordedDpi(bytes: Uint8Array, metadata: Metadata): number | undefined {
+  if (metadata.format === 'tiff') return metadata.density !== undefined && metadata.density > 0 ? metadata.density : undefined;
+  return readImageHeader(bytes)?.dpi;
 }
 
 function orientedSize(metadata: Metadata): { width: number; height: number } {

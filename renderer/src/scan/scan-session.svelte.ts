@@ -1,0 +1,65 @@
+// The state of opening one scan in the page: decoding, tracing in the worker with
+// progress, the traced sheet, and any problem to show. Components render it and
+// call its methods; nothing else changes it.
+import { decodeScanInPage, PageDecodeError } from './decode-in-page.ts';
+import { TraceClient } from './trace-client.ts';
+import type { TracedSheet } from './trace-protocol.ts';
+
+export type ScanPhase = 'idle' | 'decoding' | 'tracing' | 'traced';
+
+/** Human names of the tracing steps, shown beside the progress bar. */
+const STAGE_LABELS: Record<string, string> = {
+  binarize: 'Separating ink from paper',
+  cleanup: 'Removing specks',
+  boundaries: 'Tracing boundaries',
+  nesting: 'Nesting contours',
+  segmentation: 'Finding letters',
+  done: 'Done',
+};
+
+export class ScanSession {
+  phase = $state<ScanPhase>('idle');
+  fileName = $state('');
+  imageUrl = $state<string | null>(null);
+  progress = $state(0);
+  stageLabel = $state('');
+  sheet = $state<TracedSheet | null>(null);
+  problem = $state<string | null>(null);
+  private client: TraceClient | null = null;
+
+  /** Decodes and traces `file`; on failure keeps the previous sheet and shows why. */
+  async open(file: File): Promise<void> {
+    this.problem = null;
+    const previousPhase = this.sheet ? 'traced' : 'idle';
+    this.phase = 'decoding';
+    this.stageLabel = 'Reading the scan';
+    this.progress = 0;
+    try {
+      const scan = await decodeScanInPage(file, file.name);
+      this.phase = 'tracing';
+      this.client ??= new TraceClient();
+      const sheet = await this.client.trace(scan.raster, {}, (fraction, stage) => {
+        this.progress = fraction;
+        this.stageLabel = STAGE_LABELS[stage] ?? stage;
+      });
+      if (this.imageUrl) URL.revokeObjectURL(this.imageUrl);
+      this.imageUrl = URL.createObjectURL(file);
+      this.fileName = file.name;
+      this.sheet = sheet;
+      this.phase = 'traced';
+    } catch (error) {
+      this.problem = error instanceof PageDecodeError || error instanceof Error ? error.message : String(error);
+      this.phase = previousPhase;
+    }
+  }
+
+  /** Assigns the typed characters to the letters in reading order. */
+  async assign(characters: string): Promise<void> {
+    if (!this.client || !this.sheet) return;
+    try {
+      this.sheet = await this.client.assign(characters);
+    } catch (error) {
+      this.problem = error instanceof Error ? error.message : String(error);
+    }
+  }
+}

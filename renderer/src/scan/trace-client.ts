@@ -1,0 +1,50 @@
+// The page's handle on the tracing worker: one promise per request, progress through
+// a callback. Requests are answered in order; a new trace supersedes nothing, it
+// simply queues behind the one running.
+import type { TraceReply, TraceRequest, TraceSettings, TracedSheet } from './trace-protocol.ts';
+import type { TraceStage } from '../../../core/raster/index.ts';
+
+type Pending = { resolve: (sheet: TracedSheet) => void; reject: (error: Error) => void; onProgress?: (fraction: number, stage: TraceStage) => void };
+
+export class TraceClient {
+  private readonly worker = new Worker(new URL('./trace-worker.ts', import.meta.url), { type: 'module' });
+  private readonly pending = new Map<number, Pending>();
+  private nextId = 1;
+
+  constructor() {
+    this.worker.onmessage = (event: MessageEvent<TraceReply>) => this.receive(event.data);
+  }
+
+  /** Traces a decoded scan; the raster's pixels are handed to the worker. */
+  trace(raster: { width: number; height: number; data: Uint8Array; dpi?: number }, settings: TraceSettings, onProgress?: Pending['onProgress']): Promise<TracedSheet> {
+    return this.send({ type: 'trace', id: this.nextId++, raster, settings }, onProgress, [raster.data.buffer as ArrayBuffer]);
+  }
+
+  /** Assigns characters, in reading order, to the letters of the last traced sheet. */
+  assign(characters: string): Promise<TracedSheet> {
+    return this.send({ type: 'assign', id: this.nextId++, characters });
+  }
+
+  dispose(): void {
+    this.worker.terminate();
+  }
+
+  private send(request: TraceRequest, onProgress?: Pending['onProgress'], transfer: Transferable[] = []): Promise<TracedSheet> {
+    return new Promise((resolve, reject) => {
+      this.pending.set(request.id, onProgress ? { resolve, reject, onProgress } : { resolve, reject });
+      this.worker.postMessage(request, transfer);
+    });
+  }
+
+  private receive(message: TraceReply): void {
+    const waiting = this.pending.get(message.id);
+    if (!waiting) return;
+    if (message.type === 'progress') {
+      waiting.onProgress?.(message.fraction, message.stage);
+      return;
+    }
+    this.pending.delete(message.id);
+    if (message.type === 'traced') waiting.resolve(message.result);
+    else waiting.reject(new Error(message.message));
+  }
+}
