@@ -344,8 +344,8 @@ function nearestRow(rows: readonly RowDraft[], box: Box): number {
   return best;
 }
 
-/** The user's characters without whitespace, one entry per grapheme cluster, in NFC. */
-function splitCharacters(text: string): string[] {
+/** The user's characters without whitespace, one entry per grapheme cluster, in NFC: the unit assigned to one letter. */
+export function splitCharacters(text: string): string[] {
   const segmenter = new Intl.Segmenter(undefined, { granularity: 'grapheme' });
   const characters: string[] = [];
   for (const { segment } of segmenter.segment(text.normalize('NFC'))) {

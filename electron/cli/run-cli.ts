@@ -7,6 +7,12 @@ import { CliUsageError } from './cli-usage-error.ts';
 import { InputError } from '../io/input-error.ts';
 import { RasterError } from '../../core/raster/index.ts';
 import { boundariesCommand } from './commands/boundaries.ts';
+import { traceCommand } from './commands/trace.ts';
+import { buildCommand } from './commands/build.ts';
+import { importCommand } from './commands/import.ts';
+import { checkCommand } from './commands/check.ts';
+import { ProjectError } from '../io/project/project-error.ts';
+import { OutlineError } from '../../core/outline/index.ts';
 
 /** Where the CLI writes: stdout for results, stderr for messages. */
 export interface CliStreams {
@@ -20,7 +26,7 @@ export interface CliCommand extends CommandSummary {
 }
 
 /** Every command the CLI offers, in the order `--help` lists them. */
-export const COMMANDS: readonly CliCommand[] = [boundariesCommand];
+export const COMMANDS: readonly CliCommand[] = [buildCommand, traceCommand, boundariesCommand, importCommand, checkCommand];
 
 /** Runs the CLI on `argv` (the arguments after the program name) and returns the exit code. */
 export async function runCli(argv: readonly string[], streams: CliStreams): Promise<number> {
@@ -50,7 +56,7 @@ export async function runCli(argv: readonly string[], streams: CliStreams): Prom
       streams.err(`${error.message}\n`);
       return EXIT_USAGE;
     }
-    if (error instanceof InputError || error instanceof RasterError) {
+    if (error instanceof InputError || error instanceof RasterError || error instanceof ProjectError || error instanceof OutlineError) {
       streams.err(`stemline ${command.name}: ${oneLine(error.message)}\n`);
       return EXIT_BAD_INPUT;
     }

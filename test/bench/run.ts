@@ -11,6 +11,10 @@ import { APP_VERSION } from '../../electron/app-identity.ts';
 import { geometryBenchmarks } from './geometry.bench.ts';
 import { rasterBenchmarks, rasterThroughputReport } from './raster.bench.ts';
 import { pageBenchmarks, pageReport } from './page.bench.ts';
+import { fitBenchmarks } from './fit.bench.ts';
+import { peerBenchmarks, peerReport } from './peers.bench.ts';
+import { fontBenchmarks } from './font.bench.ts';
+import { measureRoundTrip, summaryTable } from '../fit/round-trip-measure.ts';
 
 /** Minimum measuring time per task: enough samples for a stable median on a busy 2-core machine. */
 const MEASURE_MS = 400;
@@ -35,6 +39,8 @@ function formatMs(ms: number): string {
 
 /** Repetitions for whole-page tasks (each takes about a second): enough for a stable median. */
 const PAGE_ITERATIONS = 12;
+/** Repetitions of the peer comparison (each fits 24 glyphs three ways). */
+const PEER_ITERATIONS = 8;
 
 interface Suite {
   name: string;
@@ -49,7 +55,19 @@ const suites: Suite[] = [
   { name: 'geometry', register: geometryBenchmarks },
   { name: 'page', register: pageBenchmarks, options: { iterations: PAGE_ITERATIONS, time: 0, warmupIterations: 2 }, report: pageReport },
   { name: 'raster steps', register: rasterBenchmarks, options: { iterations: PAGE_ITERATIONS, time: 0, warmupIterations: 2 }, report: rasterThroughputReport },
+  { name: 'fitting', register: fitBenchmarks },
+  { name: 'font', register: fontBenchmarks, options: { iterations: PEER_ITERATIONS, time: 0, warmupIterations: 1 } },
+  { name: 'peers', register: peerBenchmarks, options: { iterations: PEER_ITERATIONS, time: 0, warmupIterations: 1 }, report: peerReport },
+  { name: 'round trip', register: () => undefined, report: roundTripReport },
 ];
+
+/** The round trip on the reference fonts (A–Z a–z 0–9, three variants): the fit-quality figures of the README. */
+function roundTripReport(): string[] {
+  const { summaries } = measureRoundTrip();
+  const rows = summaryTable(summaries);
+  console.table(rows);
+  return rows.map((row) => Object.entries(row).map(([k, v]) => `${k} ${v}`).join('; '));
+}
 
 /** Peak resident memory of this process so far, in MiB (getrusage's maxrss is in KiB on Linux). */
 function peakResidentMiB(): number {

@@ -3,7 +3,7 @@
 // always opens, complete, as the last version that finished saving or one before it.
 import { describe, expect, it } from 'vitest';
 import { spawn } from 'node:child_process';
-import { mkdtempSync, readdirSync } from 'node:fs';
+import { mkdtempSync, readdirSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -11,7 +11,12 @@ import { loadProject, saveProject } from '../../electron/io/project/project-file
 import { newProject } from '../../electron/io/project/new-project.ts';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
-const tsx = join(root, 'node_modules', '.bin', 'tsx');
+/**
+ * The writer runs as one plain node process with tsx's loader registered (`node
+ * --import tsx`), not under the tsx command, whose wrapper process would take the
+ * SIGKILL while the writer itself went on saving.
+ */
+const NODE_ARGS = ['--import', 'tsx'];
 /** Kills per run: each one lands at a different moment of some save. */
 const KILLS = 12;
 
@@ -29,10 +34,10 @@ function seededRandom(seed: number): () => number {
 
 function runAndKill(path: string, delayMs: number): Promise<void> {
   return new Promise((resolve, reject) => {
-    const child = spawn(tsx, [join(root, 'test', 'project', 'save-loop.ts'), path], { stdio: ['ignore', 'pipe', 'inherit'] });
+    const child = spawn(process.execPath, [...NODE_ARGS, join(root, 'test', 'project', 'save-loop.ts'), path], { cwd: root, stdio: ['ignore', 'pipe', 'inherit'] });
     child.stdout.once('data', () => setTimeout(() => child.kill('SIGKILL'), delayMs));
     child.once('error', reject);
-    child.once('exit', () => resolve());
+    child.once('exit', (_code, signal) => (signal === 'SIGKILL' ? resolve() : reject(new Error(`the writer ended by itself (${String(signal)})`))));
   });
 }
 
@@ -45,6 +50,9 @@ describe('saving under SIGKILL', () => {
     const seen = new Set<string>();
     for (let kill = 0; kill < KILLS; kill++) {
       await runAndKill(path, Math.floor(random() * 250));
+      const size = statSync(path).size;
+      await new Promise((r) => setTimeout(r, 50));
+      expect(statSync(path).size).toBe(size); // nothing goes on writing after the kill
       const project = await loadProject(path); // throws if the file were torn
       expect(project.font.familyName).toMatch(/^Version \d+$/);
       expect(project.glyphs.length === 0 || project.glyphs.length === 400).toBe(true);

@@ -1,0 +1,311 @@
+/**
+ * Corner detection on noisy traced boundaries.
+ *
+ * A corner is a point where the drawn outline's tangent jumps. On a scan the jump is
+ * blurred twice: anti-aliasing and optical blur round the tip by half a pixel to a
+ * pixel or two, and pixel noise makes every two-point direction unreliable. The
+ * detector therefore works with tangents fitted over stretches several pixels long
+ * (local-line.ts) and in two steps, in the spirit of dominant-point detection with
+ * regions of support (Teh & Chin 1989, "On the detection of dominant points on digital
+ * curves", IEEE PAMI 11(8)), whose support regions end where the next dominant point
+ * begins:
+ *
+ * 1. Candidates. At every point the turn between the line fitted to the stretch of
+ *    length L just before it and the one just after it is measured. On a curve of
+ *    radius R this turn is about L/R; at a corner it is the corner's angle, whatever
+ *    the rounding of the tip, once L is a few times the rounding. Local maxima of the
+ *    turn above a fraction of the corner angle are candidates (non-maximum suppression
+ *    over ±L).
+ * 2. Verification. Each candidate's two sides are fitted separately, starting beyond
+ *    the rounded tip and ending before the neighbouring candidates' tips (the adaptive
+ *    region of support), with a parabola in the side's own frame, and extrapolated to
+ *    the apex. A tight curve gives the same tangent from both sides and is rejected; a
+ *    rounded corner gives the two sides' tangents, whose turn must exceed the corner
+ *    angle. The intersection of the two extrapolated tangent lines is the sharp corner
+ *    the designer drew (anti-aliasing and blur round the ink, so the corner is
+ *    recovered from its two sides, not followed); corner-sharpening.ts refines it.
+ *
+ * User-forced corners are always corners; forced smooth points never are.
+ */
+import type { Point, Vec } from '../geometry/vector.ts';
+import { arcAt, chainPoint, wrapIndex, type BoundaryChain } from './boundary-chain.ts';
+import { emptyStretchLine, fitStretchLine, rangeByArc, turnBetween } from './local-line.ts';
+
+/**
+ * Support length of the candidate turn measure: 4 px. Long enough that a tip rounded
+ * by up to a pixel leaves most of each one-sided stretch straight, and that pixel noise
+ * in the stretch's direction stays near a degree; short enough that two corners 4 px
+ * apart (a serif's end at 0.5 px per unit) still get separate peaks.
+ */
+export const CORNER_SUPPORT_PX = 4;
+/**
+ * Candidates need a turn of at least this share of the corner angle: the one-sided
+ * stretches include part of the rounded tip, which lowers the measured turn of a real
+ * corner, so the threshold is applied in full only at verification.
+ */
+const CANDIDATE_SHARE = 0.6;
+/**
+ * Length of each side fitted at verification: 12 px, or up to the neighbouring
+ * corner's rounded tip when that is nearer (the adaptive support region). The
+ * parabola's tangent extrapolated to the apex scatters as noise/length^1.5 or so; at
+ * 8 px a single 4σ noise point near the apex turned it by 30° on a noisy arc (measured
+ * on a synthetic stadium, σ = 0.15 px), at 12 px by under 5°.
+ */
+export const CORNER_SIDE_PX = 12;
+/**
+ * Least rounded-tip length excluded on each side of a corner: 2 px. Anti-aliasing
+ * rounds a corner by 0.5–1 px (measured in this project's round trips) and a scan blur of σ ≈ 1.2 px by about
+ * twice that; the boundary there follows the ink, not the drawn corner.
+ */
+export const CORNER_ROUNDING_PX = 2;
+/**
+ * Half the width below which a wedge of ink or paper is not resolved: 0.5 px. The
+ * tracer cuts across a wedge where it is narrower than about one pixel
+ * (test/raster/glyph-round-trip.test.ts), i.e. within 0.5/tan(opening/2) px of the apex.
+ */
+const UNRESOLVED_WEDGE_HALF_WIDTH_PX = 0.5;
+/** Cap on the excluded tip length (px): beyond this a wedge is too thin to be a corner of a drawn letter. */
+const MAX_ROUNDING_ZONE_PX = 8;
+/**
+ * How far the sharp corner may lie from the traced tip. A tip rounded with radius r
+ * lies r·(1/sin(opening/2) − 1) inside the sharp corner; anti-aliasing and moderate
+ * blur round by up to about 1.5 px, and 1 px more covers noise in the apex. A drawn
+ * corner rounded more than that is the designer's rounding and is kept (measured: with
+ * a reach of 2.5 px/sin(opening/2), the rounded crotch of Linux Libertine's n was cut
+ * 6 units too deep at 0.5 px per unit).
+ */
+export const CORNER_ROUNDING_RADIUS_PX = 1.5;
+const CORNER_REACH_MARGIN_PX = 1;
+const MAX_CORNER_REACH_PX = 8;
+/** Sides shorter than this many points are fitted with a line rather than a parabola. */
+const MIN_POINTS_FOR_PARABOLA = 6;
+/** A forced smooth index within this many px of arc cancels a detected corner. */
+const FORCED_SMOOTH_MATCH_PX = 2;
+
+export interface DetectedCorner {
+  /** Chain index of the apex (the most turning point). */
+  readonly index: number;
+  /** Signed turn of the tangent in radians, positive to the left (counter-clockwise, y-up). */
+  readonly turn: number;
+  /** Unit tangents of the incoming and outgoing sides at the corner, along the chain. */
+  readonly incoming: Vec;
+  readonly outgoing: Vec;
+  /** Arc length on each side of the apex occupied by the rounded tip (excluded from fitting). */
+  readonly roundingZone: number;
+  /** Largest distance from the apex at which the sharp corner is believed. */
+  readonly reach: number;
+  /** The sharp corner: where the sides' tangent lines meet (or the apex if they meet too far away). */
+  readonly estimate: Point;
+  /** True when the user forced this corner. */
+  readonly forced: boolean;
+}
+
+export interface CornerSettings {
+  /** Corner angle in radians. */
+  readonly cornerAngle: number;
+  /** One scan pixel in font units. */
+  readonly pixel: number;
+  readonly forcedCorners: readonly number[];
+  readonly forcedSmooth: readonly number[];
+}
+
+/** The rounded-tip length (font units) for a corner with the given turn. */
+export function roundingZoneFor(turn: number, pixel: number): number {
+  const opening = Math.PI - Math.abs(turn);
+  const wedge = UNRESOLVED_WEDGE_HALF_WIDTH_PX / Math.tan(Math.max(opening, 1e-3) / 2);
+  return Math.min(MAX_ROUNDING_ZONE_PX, Math.max(CORNER_ROUNDING_PX, wedge)) * pixel;
+}
+
+/** The reach (font units) for a corner with the given turn. */
+export function cornerReachFor(turn: number, pixel: number): number {
+  const opening = Math.PI - Math.abs(turn);
+  const inset = CORNER_ROUNDING_RADIUS_PX * (1 / Math.max(Math.sin(opening / 2), 1e-3) - 1);
+  return Math.min(MAX_CORNER_REACH_PX, inset + CORNER_REACH_MARGIN_PX) * pixel;
+}
+
+/**
+ * The turn measure of step 1 at every point: signed angle between the regression
+ * lines of the stretches [s − L, s] and [s, s + L]. O(n log n).
+ */
+export function supportTurns(chain: BoundaryChain, support: number): Float64Array {
+  const turns = new Float64Array(chain.count);
+  const back = emptyStretchLine();
+  const ahead = emptyStretchLine();
+  for (let i = 0; i < chain.count; i++) {
+    const s = chain.arc[i]!;
+    const [backFirst] = rangeByArc(chain, s - support, s);
+    const [, aheadLast] = rangeByArc(chain, s, s + support);
+    fitStretchLine(chain, Math.min(backFirst, i - 1), i, back);
+    fitStretchLine(chain, i, Math.max(aheadLast, i + 1), ahead);
+    turns[i] = turnBetween(back.angle, ahead.angle);
+  }
+  return turns;
+}
+
+/** Cyclic arc distance between two chain indices. */
+function arcDistance(chain: BoundaryChain, i: number, j: number): number {
+  const d = Math.abs(chain.arc[wrapIndex(chain, i)]! - chain.arc[wrapIndex(chain, j)]!);
+  return Math.min(d, chain.perimeter - d);
+}
+
+/** A side of a corner fitted and extrapolated to the apex. */
+interface SideFit {
+  readonly point: Point;
+  readonly tangent: Vec;
+}
+
+/**
+ * Fits the points of the unwrapped range [first, last] with a parabola v = a + b·u + c·u²
+ * in the frame of their chord (u along the chain), and returns the parabola's point and
+ * unit tangent (oriented along the chain) at the apex's u. Lines for short sides.
+ */
+export function fitSideAtApex(chain: BoundaryChain, first: number, last: number, apex: Point): SideFit | undefined {
+  const m = last - first + 1;
+  if (m < 2) return undefined;
+  const a0 = wrapIndex(chain, first);
+  const a1 = wrapIndex(chain, last);
+  const ox = chain.xs[a0]!;
+  const oy = chain.ys[a0]!;
+  let dx = chain.xs[a1]! - ox;
+  let dy = chain.ys[a1]! - oy;
+  const chord = Math.hypot(dx, dy);
+  if (chord === 0) return undefined;
+  dx /= chord;
+  dy /= chord;
+  // Normal equations of the least-squares polynomial in u (power sums up to u⁴).
+  let s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, t0 = 0, t1 = 0, t2 = 0;
+  for (let k = first; k <= last; k++) {
+    const i = wrapIndex(chain, k);
+    const px = chain.xs[i]! - ox;
+    const py = chain.ys[i]! - oy;
+    const u = (px * dx + py * dy) / chord; // scaled to [0, 1] for conditioning
+    const v = -px * dy + py * dx;
+    const u2 = u * u;
+    s0 += 1; s1 += u; s2 += u2; s3 += u2 * u; s4 += u2 * u2;
+    t0 += v; t1 += u * v; t2 += u2 * v;
+  }
+  let a = 0, b = 0, c = 0;
+  const quadratic = m >= MIN_POINTS_FOR_PARABOLA ? solve3(s0, s1, s2, s1, s2, s3, s2, s3, s4, t0, t1, t2) : undefined;
+  if (quadratic) {
+    [a, b, c] = quadratic;
+  } else {
+    const det = s0 * s2 - s1 * s1;
+    if (Math.abs(det) < 1e-12) return undefined;
+    a = (t0 * s2 - s1 * t1) / det;
+    b = (s0 * t1 - s1 * t0) / det;
+  }
+  const ax = apex.x - chain.origin.x - ox;
+  const ay = apex.y - chain.origin.y - oy;
+  const ua = (ax * dx + ay * dy) / chord;
+  const v = a + b * ua + c * ua * ua;
+  const slope = (b + 2 * c * ua) / chord; // dv/du in font units
+  const tl = Math.hypot(1, slope);
+  const tangent = { x: (dx - slope * dy) / tl, y: (dy + slope * dx) / tl };
+  const pu = ua * chord;
+  return { point: { x: ox + pu * dx - v * dy + chain.origin.x, y: oy + pu * dy + v * dx + chain.origin.y }, tangent };
+}
+
+/** Cramer's rule for a 3 × 3 system; undefined when (nearly) singular. */
+function solve3(a11: number, a12: number, a13: number, a21: number, a22: number, a23: number, a31: number, a32: number, a33: number, b1: number, b2: number, b3: number): [number, number, number] | undefined {
+  const det = a11 * (a22 * a33 - a23 * a32) - a12 * (a21 * a33 - a23 * a31) + a13 * (a21 * a32 - a22 * a31);
+  const scale = Math.abs(a11 * a22 * a33) + 1e-300;
+  if (Math.abs(det) < 1e-12 * scale) return undefined;
+  const x = (b1 * (a22 * a33 - a23 * a32) - a12 * (b2 * a33 - a23 * b3) + a13 * (b2 * a32 - a22 * b3)) / det;
+  const y = (a11 * (b2 * a33 - a23 * b3) - b1 * (a21 * a33 - a23 * a31) + a13 * (a21 * b3 - b2 * a31)) / det;
+  const z = (a11 * (a22 * b3 - b2 * a32) - a12 * (a21 * b3 - b2 * a31) + b1 * (a21 * a32 - a22 * a31)) / det;
+  return [x, y, z];
+}
+
+/** Where the lines p + s·u and q + t·v meet, or undefined for (nearly) parallel lines. */
+export function intersectLines(p: Point, u: Vec, q: Point, v: Vec): Point | undefined {
+  const denominator = u.x * v.y - u.y * v.x;
+  if (Math.abs(denominator) < 1e-9) return undefined;
+  const s = ((q.x - p.x) * v.y - (q.y - p.y) * v.x) / denominator;
+  return { x: p.x + s * u.x, y: p.y + s * u.y };
+}
+
+/**
+ * The corners of a closed chain, sorted by index.
+ *
+ * Guarantees: every forced corner is listed (marked `forced`); no corner lies within
+ * 2 px of arc of a forced smooth index; detected corners are at least L = 4 px apart;
+ * every detected corner's verified turn is at least the corner angle. Limit: two
+ * drawn corners closer than about 4 px merge into one, and a tip sharper than about
+ * 10° of opening is reported with the tracer's cut-off tip as its apex.
+ */
+export function detectCorners(chain: BoundaryChain, settings: CornerSettings): DetectedCorner[] {
+  const { pixel, cornerAngle } = settings;
+  const support = CORNER_SUPPORT_PX * pixel;
+  const turns = supportTurns(chain, support);
+  const n = chain.count;
+  const forced = new Set(settings.forcedCorners.map((i) => wrapIndex(chain, Math.round(i))));
+  const forcedSmooth = settings.forcedSmooth.map((i) => wrapIndex(chain, Math.round(i)));
+
+  // Step 1: candidates by non-maximum suppression of |turn|.
+  const order: number[] = [];
+  for (let i = 0; i < n; i++) if (Math.abs(turns[i]!) >= CANDIDATE_SHARE * cornerAngle) order.push(i);
+  order.sort((a, b) => Math.abs(turns[b]!) - Math.abs(turns[a]!));
+  const candidates: number[] = [...forced];
+  for (const i of order) {
+    if (candidates.some((j) => arcDistance(chain, i, j) < support)) continue;
+    if (forcedSmooth.some((j) => arcDistance(chain, i, j) <= FORCED_SMOOTH_MATCH_PX * pixel)) continue;
+    candidates.push(i);
+  }
+
+  // Step 2: verification, strongest candidate first, with side fits bounded by the
+  // tips of the corners already verified (weaker neighbours do not cut a side short).
+  const corners: DetectedCorner[] = [];
+  const verified: number[] = [];
+  const byStrength = [...candidates].sort((a, b) => (forced.has(b) ? 1 : 0) - (forced.has(a) ? 1 : 0) || Math.abs(turns[b]!) - Math.abs(turns[a]!));
+  for (const index of byStrength) {
+    const s = chain.arc[index]!;
+    const zone = roundingZoneFor(turns[index]!, pixel);
+    let before = s - zone - CORNER_SIDE_PX * pixel;
+    let after = s + zone + CORNER_SIDE_PX * pixel;
+    for (const other of verified) {
+      const c = corners.find((k) => k.index === other) as DetectedCorner;
+      let sOther = chain.arc[other]!;
+      if (sOther - s > chain.perimeter / 2) sOther -= chain.perimeter;
+      if (s - sOther > chain.perimeter / 2) sOther += chain.perimeter;
+      if (sOther < s) before = Math.max(before, sOther + c.roundingZone);
+      else after = Math.min(after, sOther - c.roundingZone);
+    }
+    const apex = chainPoint(chain, index);
+    const [l0, l1] = rangeByArc(chain, before, s - zone);
+    const [r0, r1] = rangeByArc(chain, s + zone, after);
+    const left = l1 > l0 ? fitSideAtApex(chain, l0, Math.min(l1, index - 1), apex) : undefined;
+    const right = r1 > r0 ? fitSideAtApex(chain, Math.max(r0, index + 1), r1, apex) : undefined;
+    const isForced = forced.has(index);
+    let incoming: Vec;
+    let outgoing: Vec;
+    if (left && right) {
+      incoming = left.tangent;
+      outgoing = right.tangent;
+    } else {
+      // Too little on a side to fit: fall back to the candidate turn's own stretches.
+      const reach = Math.max(2, Math.round(support / chain.medianStep));
+      const back = fitStretchLine(chain, index - reach, index, emptyStretchLine());
+      const ahead = fitStretchLine(chain, index, index + reach, emptyStretchLine());
+      incoming = { x: Math.cos(back.angle), y: Math.sin(back.angle) };
+      outgoing = { x: Math.cos(ahead.angle), y: Math.sin(ahead.angle) };
+    }
+    const turn = turnBetween(Math.atan2(incoming.y, incoming.x), Math.atan2(outgoing.y, outgoing.x));
+    if (!isForced && Math.abs(turn) < cornerAngle) continue;
+    const reach = cornerReachFor(turn, pixel);
+    const meet = left && right ? intersectLines(left.point, left.tangent, right.point, right.tangent) : undefined;
+    const estimate = meet && Math.hypot(meet.x - apex.x, meet.y - apex.y) <= reach ? meet : apex;
+    corners.push({ index, turn, incoming, outgoing, roundingZone: roundingZoneFor(turn, pixel), reach, estimate, forced: isForced });
+    verified.push(index);
+  }
+  corners.sort((a, b) => a.index - b.index);
+  return corners;
+}
+
+/** Arc length from corner apex `index` to unwrapped index `k` (signed, the short way round). */
+export function arcOffset(chain: BoundaryChain, index: number, k: number): number {
+  let d = arcAt(chain, k) - arcAt(chain, index);
+  const half = chain.perimeter / 2;
+  while (d > half) d -= chain.perimeter;
+  while (d < -half) d += chain.perimeter;
+  return d;
+}

@@ -1,0 +1,446 @@
+/**
+ * One traced boundary in, one outline contour out: the fitting stages in order.
+ *
+ * 1. corners (corners.ts) — where the tangent jumps, with the sharp corner estimated
+ *    from the two sides;
+ * 2. lines (lines.ts) — straight runs between corners, snapped to the axes;
+ * 3. extrema (extrema.ts) — horizontal and vertical extremes of the curved runs,
+ *    which become on-curve points with axis tangents;
+ * 4. curves (minimum-segments.ts, least-squares.ts) — the fewest least-squares cubics
+ *    between those points, G1 exact at every smooth join;
+ * 5. corner sharpening (corner-sharpening.ts) — corners moved to where the fitted
+ *    sides meet;
+ * 6. finishing (extrema.ts, finishing.ts, grid-rounding.ts) — remaining extrema split
+ *    off, segments merged where one cubic suffices, crossing handles shortened,
+ *    coordinates rounded to the grid with smooth joins kept smooth;
+ * 7. the quality report (quality-report.ts).
+ *
+ * Fitting aims at the tolerance less a reserve for grid rounding; if rounding still
+ * pushes a segment past the tolerance, the contour is fitted again with a larger
+ * reserve (at most twice).
+ *
+ * The contour keeps the chain's direction; fit-glyph.ts sets directions by nesting.
+ */
+import type { Point, Vec } from '../geometry/vector.ts';
+import { line, type LineSegment } from '../geometry/segment.ts';
+import { contourFromSegments, type OutlineContour, type OutlineSegment } from '../outline/outline-contour.ts';
+import { arcAt, chainPoint, prepareChain, wrapIndex, type BoundaryChain } from './boundary-chain.ts';
+import { CORNER_SUPPORT_PX, detectCorners, intersectLines, supportTurns, type DetectedCorner } from './corners.ts';
+import { chainExtrema, enforceExtrema, MIN_POINT_SPACING_UNITS, topExtremum, type ExtremumAxis } from './extrema.ts';
+import { resolveFitOptions, type FitOptions, type ResolvedFitOptions } from './fit-options.ts';
+import type { FitNode, FitSpan, FittedContour } from './fitted-contour.ts';
+import { detectLines, projectOntoLine, runsBetweenCorners, type ChainRun, type DetectedLine } from './lines.ts';
+import { fitCubic } from './least-squares.ts';
+import { estimateNoise, rangeByArc } from './local-line.ts';
+import { fitStretch } from './minimum-segments.ts';
+import { sharpenCorners } from './corner-sharpening.ts';
+import { fixCrossingHandles, mergeSegments, smoothShallowCorners } from './finishing.ts';
+import { roundToGrid } from './grid-rounding.ts';
+import { contourReport, type ContourFitReport } from './quality-report.ts';
+import { measureSpanError } from './span-error.ts';
+
+/**
+ * Share of the tolerance kept in reserve for grid rounding: the fit aims at the
+ * tolerance less 0.35 grid units, since rounding an on-curve point and its handles to
+ * the grid moves the curve by up to about half a grid unit and 0.35 of a unit on
+ * average over the worst points (measured on the round-trip glyphs).
+ */
+export const ROUNDING_RESERVE_GRID = 0.35;
+/** A line end within the corner's rounding zone plus this many pixels belongs to the corner. */
+const LINE_AT_CORNER_SLACK_PX = 2;
+
+export interface ContourFit {
+  readonly contour: OutlineContour;
+  readonly report: ContourFitReport;
+  /** The fitted contour before rounding, with its links to the chain (for checks and tools). */
+  readonly fitted: FittedContour;
+}
+
+/** Settings the stages share, derived once per chain. */
+export interface StageSettings {
+  readonly options: ResolvedFitOptions;
+  /** Scan pixel in font units. */
+  readonly pixel: number;
+  /** Tolerance used while fitting (the tolerance less the rounding reserve). */
+  readonly fitTolerance: number;
+  /** Scan noise of the chain (standard deviation across the boundary), font units. */
+  readonly noise: number;
+}
+
+/**
+ * Fits one closed chain (font units, y up) with a contour of lines and cubics.
+ *
+ * Guarantees: on-curve points and handles are multiples of the grid; lines the axis
+ * snap applied to are exactly horizontal or vertical; axis-aligned smooth joins are
+ * exactly collinear, other smooth joins collinear as far as the grid allows (see
+ * grid-rounding.ts); every listed shortfall (tolerance exceeded, extremum left inside a
+ * segment, kink, crossing handles) is reported in `report.warnings`. The input is not
+ * modified. Limits: see each stage; a chain needs at least 3 distinct points.
+ */
+export function fitContour(points: readonly Point[], options: FitOptions = {}): ContourFit {
+  const resolved = resolveFitOptions(options);
+  const { chain, keptIndices } = prepareChain(points);
+  const pixel = resolved.pixelSize ?? chain.medianStep;
+  const noise = estimateNoise(chain, pixel);
+  const toChain = (inputIndex: number): number => nearestKept(keptIndices, inputIndex);
+  const corners = detectCorners(chain, {
+    cornerAngle: (resolved.cornerAngleDegrees * Math.PI) / 180,
+    pixel,
+    forcedCorners: resolved.forcedCorners.map(toChain),
+    forcedSmooth: resolved.forcedSmooth.map(toChain),
+  });
+  // With no corner, the one run round the chain starts where it turns most, never inside a line.
+  const seam = corners.length > 0 ? (corners[0] as DetectedCorner).index : mostTurningPoint(chain, pixel);
+  const runs = runsBetweenCorners(chain, corners, seam);
+  let reserve = ROUNDING_RESERVE_GRID * resolved.grid;
+  let result: ContourFit | undefined;
+  for (let attempt = 0; attempt <= ROUNDING_RETRIES; attempt++) {
+    const settings: StageSettings = { options: resolved, pixel, fitTolerance: Math.max(resolved.tolerance / 2, resolved.tolerance - reserve), noise };
+    const lines = withoutLinesInSingleCurves(chain, runs, corners, detectLines(chain, runs, { tolerance: settings.fitTolerance, pixel, axisSnap: (resolved.axisSnapDegrees * Math.PI) / 180 }), settings);
+    let fitted = assemble(chain, corners, lines, settings);
+    fitted = sharpenCorners(chain, fitted, settings.fitTolerance);
+    fitted = enforceExtrema(chain, fitted, settings.fitTolerance);
+    fitted = smoothShallowCorners(chain, fitted, settings.fitTolerance);
+    fitted = mergeSegments(chain, fitted, settings.fitTolerance);
+    fitted = fixCrossingHandles(chain, fitted, settings.fitTolerance);
+    const rounded = roundToGrid(chain, fitted, resolved.grid, resolved.tolerance);
+    const segments: OutlineSegment[] = rounded.spans.map((span) => span.segment);
+    const contour = contourFromSegments(segments, rounded.nodes.map((node) => node.smooth));
+    result = { contour, report: contourReport(chain, rounded, resolved.tolerance), fitted };
+    // Rounding pushed a segment past the tolerance: fit again with a larger reserve.
+    if (!rounded.spans.some((span) => span.maxError > resolved.tolerance)) break;
+    reserve += ROUNDING_RETRY_STEP_GRID * resolved.grid;
+  }
+  return result as ContourFit;
+}
+
+/**
+ * Lines dropped from runs between two corners that one cubic fits within the
+ * tolerance. A gently curved stroke (the diagonal of Linux Libertine's 7 or Z) is
+ * straight to within the noise over any 40–80 px of it, so the line search cuts it
+ * into lines joined by short curves, with two on-curve points per piece; the designer
+ * drew one curve. Only runs without an interior extremum are considered (a curve
+ * through an extremum needs a point there anyway), and a run that is one line as a
+ * whole keeps it.
+ */
+function withoutLinesInSingleCurves(chain: BoundaryChain, runs: readonly ChainRun[], corners: readonly DetectedCorner[], lines: readonly DetectedLine[], settings: StageSettings): DetectedLine[] {
+  const dropped = new Set<DetectedLine>(polygonalLines(chain, corners, lines, settings));
+  if (corners.length === 0) return lines.filter((l) => !dropped.has(l));
+  runs.forEach((run, k) => {
+    if (!run.betweenCorners) return;
+    const inside = lines.filter((l) => {
+      const first = l.first < run.first ? l.first + chain.count : l.first;
+      return first >= run.first && first <= run.last;
+    });
+    if (inside.length === 0) return;
+    if (inside.length === 1 && inside[0]!.first === wrapIndex(chain, run.first) && inside[0]!.last - inside[0]!.first === run.last - run.first) return;
+    if (chainExtrema(chain, run.first, run.last, settings.pixel, settings.noise).length > 0) return;
+    const start = corners[k]!;
+    const end = corners[(k + 1) % corners.length]!;
+    if (inside.every((l) => dropped.has(l))) return;
+    const fit = fitCubic({ chain, first: run.first, last: run.last, start: start.estimate, end: end.estimate, startTangent: null, endTangent: null }, settings.fitTolerance);
+    if (fit.maxError > settings.fitTolerance) return;
+    for (const l of inside) dropped.add(l);
+  });
+  return lines.filter((l) => !dropped.has(l));
+}
+
+/** Two lines closer than this (px of chain, or this share of the shorter line) with no corner between them are suspect. */
+const POLYGON_GAP_PX = 20;
+const POLYGON_GAP_SHARE = 0.5;
+/** Directions differing by less than this are the same line interrupted, not a polygon (0.5°, about the noise in a long line's direction). */
+const SAME_DIRECTION_RADIANS = (0.5 * Math.PI) / 180;
+
+/**
+ * Lines that are really a polygon laid along a gently curved stroke: consecutive lines
+ * with no corner between them, a short gap, and directions that differ (but by less
+ * than a corner). Each is straight within the noise, yet together they turn; the
+ * stroke is a curve and gets cubics instead.
+ */
+function polygonalLines(chain: BoundaryChain, corners: readonly DetectedCorner[], lines: readonly DetectedLine[], settings: StageSettings): DetectedLine[] {
+  const suspects: DetectedLine[] = [];
+  const cornerAngle = (settings.options.cornerAngleDegrees * Math.PI) / 180;
+  for (let i = 0; i < lines.length && lines.length > 1; i++) {
+    const a = lines[i]!;
+    const b = lines[(i + 1) % lines.length]!;
+    const bFirst = b.first <= a.last ? b.first + chain.count : b.first;
+    const gap = arcAt(chain, bFirst) - arcAt(chain, a.last);
+    const shorter = Math.min(arcAt(chain, a.last) - arcAt(chain, a.first), arcAt(chain, b.last) - arcAt(chain, b.first));
+    if (gap < 0 || gap > Math.max(POLYGON_GAP_PX * settings.pixel, POLYGON_GAP_SHARE * shorter)) continue;
+    const cornerBetween = corners.some((c) => {
+      const index = c.index < a.last ? c.index + chain.count : c.index;
+      return index >= a.last && index <= bFirst;
+    });
+    if (cornerBetween) continue;
+    const turn = Math.abs(Math.atan2(a.direction.x * b.direction.y - a.direction.y * b.direction.x, a.direction.x * b.direction.x + a.direction.y * b.direction.y));
+    if (turn <= SAME_DIRECTION_RADIANS || turn >= cornerAngle) continue;
+    suspects.push(a, b);
+  }
+  return suspects;
+}
+
+/** Extra fits with a larger rounding reserve when rounding broke the tolerance, and the reserve added each time. */
+const ROUNDING_RETRIES = 2;
+const ROUNDING_RETRY_STEP_GRID = 0.2;
+
+/** Chain index where the support turn (corners.ts) is largest. */
+function mostTurningPoint(chain: BoundaryChain, pixel: number): number {
+  const turns = supportTurns(chain, CORNER_SUPPORT_PX * pixel);
+  let best = 0;
+  for (let i = 1; i < turns.length; i++) if (Math.abs(turns[i]!) > Math.abs(turns[best]!)) best = i;
+  return best;
+}
+
+/** The de-duplicated chain index whose input index is nearest `inputIndex`. */
+function nearestKept(kept: Int32Array, inputIndex: number): number {
+  let lo = 0;
+  let hi = kept.length - 1;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (kept[mid]! < inputIndex) lo = mid + 1;
+    else hi = mid;
+  }
+  if (lo > 0 && Math.abs(kept[lo - 1]! - inputIndex) <= Math.abs(kept[lo]! - inputIndex)) return lo - 1;
+  return lo;
+}
+
+/** A node while the contour is assembled, with the line (if any) that leaves it. */
+interface Knot {
+  index: number;
+  point: Point;
+  smooth: boolean;
+  tangentIn: Vec | null;
+  tangentOut: Vec | null;
+  extremum: ExtremumAxis | null;
+  corner: DetectedCorner | null;
+  lineOut: DetectedLine | null;
+}
+
+/** Signed arc length from unwrapped index a forward to b, in [0, perimeter). */
+function arcForward(chain: BoundaryChain, a: number, b: number): number {
+  const d = arcAt(chain, b) - arcAt(chain, a);
+  return ((d % chain.perimeter) + chain.perimeter) % chain.perimeter;
+}
+
+/** Stages 1–4: knots from corners, lines and extrema, then the curves between them. */
+function assemble(chain: BoundaryChain, corners: readonly DetectedCorner[], lines: readonly DetectedLine[], settings: StageSettings): FittedContour {
+  const { pixel, fitTolerance } = settings;
+  const knots: Knot[] = corners.map((corner) => ({
+    index: corner.index,
+    point: corner.estimate,
+    smooth: false,
+    tangentIn: null,
+    tangentOut: null,
+    extremum: null,
+    corner,
+    lineOut: null,
+  }));
+  const slack = LINE_AT_CORNER_SLACK_PX * pixel;
+  const lineIn = new Map<Knot, DetectedLine>();
+  for (const l of lines) {
+    const startCorner = knots.find((k) => k.corner && arcForward(chain, k.index, l.first) <= k.corner.roundingZone + slack);
+    if (startCorner) {
+      startCorner.tangentOut = l.direction;
+      startCorner.lineOut = l;
+    } else {
+      knots.push({ index: l.first, point: projectOntoLine(chain, l, l.first), smooth: true, tangentIn: l.direction, tangentOut: l.direction, extremum: null, corner: null, lineOut: l });
+    }
+    const endCorner = knots.find((k) => k.corner && arcForward(chain, l.last, k.index) <= k.corner.roundingZone + slack);
+    if (endCorner) {
+      endCorner.tangentIn = l.direction;
+      lineIn.set(endCorner, l);
+    } else {
+      const end: Knot = { index: l.last, point: projectOntoLine(chain, l, l.last), smooth: true, tangentIn: l.direction, tangentOut: l.direction, extremum: null, corner: null, lineOut: null };
+      knots.push(end);
+      lineIn.set(end, l);
+    }
+  }
+  // Corners on lines: put the corner point on the line(s).
+  for (const k of knots) {
+    if (!k.corner) continue;
+    const incoming = lineIn.get(k);
+    const outgoing = k.lineOut;
+    const apex = chainPoint(chain, k.corner.index);
+    const within = (p: Point | undefined, limit: number): p is Point => p !== undefined && Math.hypot(p.x - apex.x, p.y - apex.y) <= limit;
+    if (incoming && outgoing) {
+      const meet = intersectLines(incoming.through, incoming.direction, outgoing.through, outgoing.direction);
+      k.point = within(meet, 2 * k.corner.reach) ? meet : projectPoint(k.point, outgoing);
+    } else if (incoming || outgoing) {
+      const l = (incoming ?? outgoing) as DetectedLine;
+      const other = incoming ? k.corner.outgoing : k.corner.incoming;
+      const meet = intersectLines(l.through, l.direction, k.corner.estimate, other);
+      k.point = within(meet, k.corner.reach) ? meet : projectPoint(k.point, l);
+    }
+  }
+  if (knots.length === 0) {
+    const top = topExtremum(chain, pixel, settings.noise);
+    knots.push({ index: top.index, point: top.point, smooth: true, tangentIn: top.tangent, tangentOut: top.tangent, extremum: 'y', corner: null, lineOut: null });
+  }
+  const base = Math.min(...knots.map((k) => wrapIndex(chain, k.index)));
+  for (const k of knots) {
+    k.index = wrapIndex(chain, k.index);
+    if (k.index < base) k.index += chain.count;
+  }
+  knots.sort((a, b) => a.index - b.index);
+
+  // Extrema inside the curved stretches.
+  const withExtrema: Knot[] = [];
+  knots.forEach((k, i) => {
+    withExtrema.push(k);
+    if (k.lineOut) return;
+    const next = nextKnot(knots, i, chain.count);
+    const [first, last] = dataRange(chain, k, next);
+    const spacing = Math.max(MIN_POINT_SPACING_UNITS, pixel);
+    let previousPoint = k.point;
+    for (const e of chainExtrema(chain, first, last, pixel, settings.noise)) {
+      const nearStart = Math.hypot(e.point.x - k.point.x, e.point.y - k.point.y) < spacing;
+      const nearEnd = Math.hypot(e.point.x - next.point.x, e.point.y - next.point.y) < spacing;
+      if (nearStart || nearEnd) {
+        // Move the neighbouring corner's tangent to the axis instead of adding a point.
+        const neighbour = nearStart ? k : next;
+        if (neighbour.corner && !neighbour.corner.forced) {
+          if (nearStart && neighbour.tangentOut === null) neighbour.tangentOut = e.tangent;
+          if (!nearStart && neighbour.tangentIn === null) neighbour.tangentIn = e.tangent;
+        }
+        continue;
+      }
+      if (Math.hypot(e.point.x - previousPoint.x, e.point.y - previousPoint.y) < spacing) continue;
+      withExtrema.push({ index: e.index, point: e.point, smooth: true, tangentIn: e.tangent, tangentOut: e.tangent, extremum: e.axis, corner: null, lineOut: null });
+      previousPoint = e.point;
+    }
+  });
+
+  settleLineEnds(chain, withExtrema, lineIn, settings);
+
+  // Curves between consecutive knots; lines where a line leaves a knot.
+  const nodes: FitNode[] = [];
+  const spans: FitSpan[] = [];
+  withExtrema.forEach((k, i) => {
+    const next = nextKnot(withExtrema, i, chain.count);
+    nodes.push(nodeOf(k, true));
+    if (k.lineOut) {
+      const l = k.lineOut;
+      const segment: LineSegment = line(k.point, next.point);
+      // A smooth end may have retreated along the line: the line then stands for the points up to it.
+      const first = k.corner ? l.first : Math.max(l.first, k.index);
+      const last = next.corner ? l.last : Math.min(l.last, next.index + (next.index < first ? chain.count : 0));
+      spans.push({ segment, first, last, maxError: measureSpanError(chain, segment, first, last, fitTolerance), carrier: { through: l.through, direction: l.direction } });
+      return;
+    }
+    const [first, last] = dataRange(chain, k, next);
+    const fit = fitStretch(chain, { index: k.index, point: k.point, tangent: k.tangentOut }, { index: next.index, point: next.point, tangent: next.tangentIn }, first, last, { tolerance: fitTolerance, pixel });
+    fit.segments.forEach((segment, s) => {
+      if (s > 0) {
+        const b = fit.breakpoints[s - 1]!;
+        nodes.push({ point: b.point, smooth: true, tangentIn: b.tangent, tangentOut: b.tangent, extremum: null, corner: null, index: b.index, pinned: false });
+      }
+      const [a, z] = fit.ranges[s]!;
+      spans.push({ segment, first: a, last: z, maxError: fit.errors[s]!, carrier: null });
+    });
+  });
+  return { nodes, spans };
+}
+
+/**
+ * Retreats, in px along the line, tried for a line end where a curve leaves it
+ * tangentially. A line grown until the boundary leaves it by more than the noise runs
+ * a few pixels into the curve (a tangent curve departs only quadratically), and the
+ * curve then starts with the line's direction at a point where the drawn curve has
+ * already turned. The end is moved back to where the curve beyond it fits best.
+ */
+const LINE_END_RETREATS_PX = [0, 1, 2, 3, 4, 6, 8, 11, 15, 20];
+/** A line end retreats by at most this share of the line's length (both ends together keep half of it). */
+const MAX_RETREAT_SHARE = 0.25;
+
+/**
+ * Moves each smooth line end (a line joined tangentially by a curve) back along the
+ * line to where one cubic from it to the next on-curve point fits best.
+ */
+function settleLineEnds(chain: BoundaryChain, knots: Knot[], lineIn: Map<Knot, DetectedLine>, settings: StageSettings): void {
+  const { pixel, fitTolerance } = settings;
+  const count = knots.length;
+  for (let i = 0; i < count; i++) {
+    const knot = knots[i]!;
+    if (!knot.smooth) continue;
+    const incoming = lineIn.get(knot);
+    const outgoing = knot.lineOut;
+    if (incoming && !outgoing) {
+      // Line arrives, curve leaves: retreat backwards along the incoming line.
+      const next = nextKnot(knots, i, chain.count);
+      const best = bestRetreat(chain, knot, incoming, -1, (trial) => {
+        const [first, last] = dataRange(chain, trial, next);
+        return fitStretch(chain, { index: trial.index, point: trial.point, tangent: trial.tangentOut }, { index: next.index, point: next.point, tangent: next.tangentIn }, first, last, { tolerance: fitTolerance, pixel });
+      }, arcForward(chain, incoming.first, knot.index), pixel);
+      if (best) {
+        knot.index = best.index;
+        knot.point = best.point;
+      }
+    } else if (outgoing && !incoming) {
+      const previous = knots[(i - 1 + count) % count]!;
+      const before: Knot = i === 0 ? { ...previous, index: previous.index - chain.count } : previous;
+      const best = bestRetreat(chain, knot, outgoing, 1, (trial) => {
+        const [first, last] = dataRange(chain, before, trial);
+        return fitStretch(chain, { index: before.index, point: before.point, tangent: before.tangentOut }, { index: trial.index, point: trial.point, tangent: trial.tangentIn }, first, last, { tolerance: fitTolerance, pixel });
+      }, arcForward(chain, knot.index, outgoing.last), pixel);
+      if (best) {
+        knot.index = best.index;
+        knot.point = best.point;
+      }
+    }
+  }
+}
+
+/**
+ * The retreat (direction −1: backwards from a line's end; +1: forwards from its
+ * start) whose curve fit has the fewest segments, then the smallest error.
+ */
+function bestRetreat(
+  chain: BoundaryChain,
+  knot: Knot,
+  l: DetectedLine,
+  direction: number,
+  fitCurve: (trial: Knot) => { segments: readonly unknown[]; errors: readonly number[] },
+  lineLength: number,
+  pixel: number,
+): { index: number; point: Point } | undefined {
+  let best: { index: number; point: Point; segments: number; error: number } | undefined;
+  const s0 = arcAt(chain, knot.index);
+  for (const retreat of LINE_END_RETREATS_PX) {
+    const distance = retreat * pixel;
+    if (distance > MAX_RETREAT_SHARE * lineLength) break;
+    const [index] = direction < 0 ? rangeByArc(chain, s0 - distance, s0 - distance) : rangeByArc(chain, s0 + distance, s0 + distance);
+    const trialIndex = retreat === 0 ? knot.index : Math.max(Math.min(index, Math.max(knot.index, index)), Math.min(knot.index, index));
+    const trial: Knot = { ...knot, index: trialIndex, point: projectOntoLine(chain, l, trialIndex) };
+    const fit = fitCurve(trial);
+    const error = Math.max(...fit.errors);
+    if (!best || fit.segments.length < best.segments || (fit.segments.length === best.segments && error < best.error - 1e-9)) {
+      best = { index: trial.index, point: trial.point, segments: fit.segments.length, error };
+    }
+  }
+  return best;
+}
+
+function projectPoint(p: Point, l: DetectedLine): Point {
+  const along = (p.x - l.through.x) * l.direction.x + (p.y - l.through.y) * l.direction.y;
+  return { x: l.through.x + along * l.direction.x, y: l.through.y + along * l.direction.y };
+}
+
+function nodeOf(k: Knot, pinned: boolean): FitNode {
+  return { point: k.point, smooth: k.smooth, tangentIn: k.tangentIn, tangentOut: k.tangentOut, extremum: k.extremum, corner: k.corner, index: k.index, pinned };
+}
+
+/** The knot after knot i, with its index unwrapped past knot i (one lap for a single knot). */
+function nextKnot(knots: readonly Knot[], i: number, count: number): Knot {
+  if (i + 1 < knots.length) return knots[i + 1] as Knot;
+  const first = knots[0] as Knot;
+  return { ...first, index: first.index + count };
+}
+
+/** The chain points a curve from knot a to knot b is fitted to: corner tips left out. */
+function dataRange(chain: BoundaryChain, a: Knot, b: Knot): [number, number] {
+  const from = arcAt(chain, a.index) + (a.corner ? a.corner.roundingZone : 0);
+  const to = arcAt(chain, b.index) - (b.corner ? b.corner.roundingZone : 0);
+  if (to <= from) return [a.index + 1, a.index];
+  const [first, last] = rangeByArc(chain, from, to);
+  return [Math.max(first, a.index), Math.min(last, b.index)];
+}

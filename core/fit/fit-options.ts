@@ -1,0 +1,109 @@
+/**
+ * The settings of the fitting engine, with their defaults and the reasons for them.
+ *
+ * Everything the fitter decides from the caller's side lives here: how far the outline
+ * may stray from the traced boundary, what counts as a corner, when a nearly straight
+ * line is made exactly horizontal or vertical, which points the user has forced, and
+ * how fine the coordinate grid is. All lengths are font units in a y-up frame; the caller
+ * maps traced pixel chains into that frame before fitting.
+ */
+
+export interface FitOptions {
+  /**
+   * Largest allowed distance, in font units, from any traced boundary point to the
+   * outline (outside the rounded tips of corners, which are recovered by sharpening
+   * rather than followed). Default {@link DEFAULT_TOLERANCE}.
+   */
+  readonly tolerance?: number;
+  /**
+   * A point where the boundary's tangent turns by more than this many degrees is a
+   * corner. Default {@link DEFAULT_CORNER_ANGLE_DEGREES}.
+   */
+  readonly cornerAngleDegrees?: number;
+  /**
+   * A straight line within this many degrees of horizontal or vertical is made exactly
+   * horizontal or vertical. Default {@link DEFAULT_AXIS_SNAP_DEGREES}.
+   */
+  readonly axisSnapDegrees?: number;
+  /** Chain indices that must become corners, whatever the detector says. */
+  readonly forcedCorners?: readonly number[];
+  /** Chain indices that must never become corners (the join there is kept smooth). */
+  readonly forcedSmooth?: readonly number[];
+  /** Coordinate grid in font units; outputs are multiples of it. Default 1 (integers). */
+  readonly grid?: number;
+  /**
+   * Size of one scan pixel in font units. The scale of scan noise and of the corner
+   * rounding caused by anti-aliasing and blur is a pixel, so the fitter's local windows
+   * are measured in pixels. Default: estimated as the median step between consecutive
+   * chain points (boundary tracers step about one pixel at a time).
+   */
+  readonly pixelSize?: number;
+}
+
+/** Every option resolved to a value. */
+export interface ResolvedFitOptions {
+  readonly tolerance: number;
+  readonly cornerAngleDegrees: number;
+  readonly axisSnapDegrees: number;
+  readonly forcedCorners: readonly number[];
+  readonly forcedSmooth: readonly number[];
+  readonly grid: number;
+  /** Undefined here means: estimate from the chain. */
+  readonly pixelSize: number | undefined;
+}
+
+/**
+ * Default tolerance: 1.5 font units. At the intended scan scale of about one pixel per
+ * unit, traced boundaries deviate from the drawn edge by 0.5–2 units (measured: median
+ * Hausdorff 0.6 units clean, 1.9 units on a degraded scan, in round trips on the
+ * reference fonts), so a
+ * tighter tolerance only makes the outline follow scan noise with extra points, and a
+ * looser one starts to lose drawn detail. 1.5 units on a 1000-unit em is 0.15 % of the
+ * em, below what is visible at text sizes.
+ */
+export const DEFAULT_TOLERANCE = 1.5;
+
+/**
+ * Default corner angle: 25°. Tangent turns of drawn corners in text typefaces are
+ * mostly 45–150°; bracketed serifs and stem joins go down to about 25–30°. Below
+ * about 20° a turn on a noisy chain cannot be told from a tight curve (the measured
+ * noise in the detector's tangents is a few degrees, see corners.ts), so 25° keeps
+ * nearly every drawn corner without inventing corners on curves. Common practice
+ * puts this threshold between 20° and 30°.
+ */
+export const DEFAULT_CORNER_ANGLE_DEGREES = 25;
+
+/**
+ * Default axis snap: 2°. Common practice: a line drawn by hand to be vertical is
+ * rarely more than a degree or two off, while an intended slant (an italic or a
+ * diagonal stroke) is at least several degrees.
+ */
+export const DEFAULT_AXIS_SNAP_DEGREES = 2;
+
+/** Default grid: 1 font unit (integer coordinates, as font formats store them). */
+export const DEFAULT_GRID = 1;
+
+/**
+ * The options with defaults filled in. Throws a RangeError naming the option for
+ * values that cannot work (non-positive tolerance or grid, angles outside (0°, 180°)).
+ */
+export function resolveFitOptions(options: FitOptions = {}): ResolvedFitOptions {
+  const tolerance = options.tolerance ?? DEFAULT_TOLERANCE;
+  const cornerAngleDegrees = options.cornerAngleDegrees ?? DEFAULT_CORNER_ANGLE_DEGREES;
+  const axisSnapDegrees = options.axisSnapDegrees ?? DEFAULT_AXIS_SNAP_DEGREES;
+  const grid = options.grid ?? DEFAULT_GRID;
+  if (!(tolerance > 0) || !Number.isFinite(tolerance)) throw new RangeError(`tolerance must be a positive number of font units, got ${String(tolerance)}`);
+  if (!(cornerAngleDegrees > 0 && cornerAngleDegrees < 180)) throw new RangeError(`cornerAngleDegrees must be between 0 and 180, got ${String(cornerAngleDegrees)}`);
+  if (!(axisSnapDegrees >= 0 && axisSnapDegrees < 45)) throw new RangeError(`axisSnapDegrees must be between 0 and 45, got ${String(axisSnapDegrees)}`);
+  if (!(grid > 0) || !Number.isFinite(grid)) throw new RangeError(`grid must be a positive number of font units, got ${String(grid)}`);
+  if (options.pixelSize !== undefined && !(options.pixelSize > 0)) throw new RangeError(`pixelSize must be positive, got ${String(options.pixelSize)}`);
+  return {
+    tolerance,
+    cornerAngleDegrees,
+    axisSnapDegrees,
+    forcedCorners: options.forcedCorners ?? [],
+    forcedSmooth: options.forcedSmooth ?? [],
+    grid,
+    pixelSize: options.pixelSize,
+  };
+}

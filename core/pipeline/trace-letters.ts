@@ -1,0 +1,129 @@
+/**
+ * The pipeline from a scan to fitted letters, the one entry the app's worker, the CLI
+ * and the tests call: scan → boundaries → letters (core/raster) → metrics and scale
+ * (core/metrics) → one fitted outline per letter in font units (core/fit).
+ *
+ * Each letter gets its own frame: x from the left edge of its ink, y up from its row's
+ * baseline, scaled by one sheet-wide factor (font units per pixel) so that the drawn
+ * cap height becomes the chosen cap height.
+ */
+import type { Point } from '../geometry/vector.ts';
+import { traceScan, type Box, type ScanImage, type TraceScanOptions, type TraceScanResult, type TraceStage } from '../raster/index.ts';
+import { DEFAULT_CAP_HEIGHT_UNITS, measureSheetMetrics, unitsPerPixel as scaleFromMetrics, type SheetMetrics } from '../metrics/index.ts';
+import { DEFAULT_TOLERANCE, fitGlyph, type FitOptions, type GlyphChain, type GlyphFitReport } from '../fit/index.ts';
+import type { GlyphOutline } from '../outline/index.ts';
+
+/**
+ * The tolerance never goes below this many scan pixels. Traced boundaries of clean
+ * scans deviate from the drawn edge by about 0.6 px (median Hausdorff distance
+ * measured in round trips on this project's machines); a tighter tolerance makes the
+ * outline follow scan noise with extra points instead of following the drawing.
+ */
+export const MIN_TOLERANCE_PIXELS = 0.75;
+
+/** Where a letter's font-unit frame sits on the scan. */
+export interface LetterFrame {
+  /** Pixel x of the frame's x = 0 (the left edge of the letter's ink). */
+  readonly originX: number;
+  /** Pixel y of the frame's y = 0 (the row's baseline). */
+  readonly baselineY: number;
+  /** Font units per scan pixel. */
+  readonly unitsPerPixel: number;
+}
+
+export interface TracedLetter {
+  readonly index: number;
+  readonly character: string | null;
+  readonly row: number;
+  /** The letter's ink box on the scan (pixel frame). */
+  readonly box: Box;
+  readonly frame: LetterFrame;
+  /** The fitted outline in font units (y up), or null when fitting failed (see `problem`). */
+  readonly outline: GlyphOutline | null;
+  readonly report: GlyphFitReport | null;
+  readonly problem: string | null;
+}
+
+export interface TraceLettersOptions {
+  readonly scan?: TraceScanOptions;
+  readonly fit?: FitOptions;
+  /** Font units per pixel; by default the measured cap height becomes `capHeightUnits`. */
+  readonly unitsPerPixel?: number;
+  /** Cap height in font units the drawn cap height maps to. Default 700. */
+  readonly capHeightUnits?: number;
+  /** Progress over the whole pipeline (0–1) with the current step. */
+  readonly onProgress?: (fraction: number, stage: TraceStage | 'fitting') => void;
+}
+
+export interface TracedLetters {
+  readonly scan: TraceScanResult;
+  readonly metrics: SheetMetrics;
+  readonly unitsPerPixel: number;
+  /** The tolerance actually used, in font units. */
+  readonly tolerance: number;
+  readonly letters: readonly TracedLetter[];
+  readonly notes: readonly string[];
+}
+
+/** Share of the progress bar given to the raster stage; fitting takes the rest. */
+const RASTER_PROGRESS_SHARE = 0.5;
+
+/** Maps a pixel-frame point into a letter's font-unit frame. */
+export function toFontUnits(frame: LetterFrame, p: Point): Point {
+  return { x: (p.x - frame.originX) * frame.unitsPerPixel, y: (frame.baselineY - p.y) * frame.unitsPerPixel };
+}
+
+/** Maps a font-unit point of a letter back onto the scan's pixel frame. */
+export function toScanPixels(frame: LetterFrame, p: Point): Point {
+  return { x: frame.originX + p.x / frame.unitsPerPixel, y: frame.baselineY - p.y / frame.unitsPerPixel };
+}
+
+/**
+ * Traces and fits every letter of a scan. Throws what traceScan throws (a page with no
+ * ink, bad options); a letter that cannot be fitted is kept with `problem` set.
+ */
+export function traceLetters(image: ScanImage, options: TraceLettersOptions = {}): TracedLetters {
+  const report = options.onProgress;
+  const scan = traceScan(image, {
+    ...options.scan,
+    onProgress: (fraction, stage) => report?.(fraction * RASTER_PROGRESS_SHARE, stage),
+  });
+  return fitTracedSheet(scan, {
+    ...options,
+    onProgress: (fraction, stage) => report?.(RASTER_PROGRESS_SHARE + (1 - RASTER_PROGRESS_SHARE) * fraction, stage),
+  });
+}
+
+/**
+ * Fits the letters of an already traced sheet (its `sheet` may have been re-segmented,
+ * e.g. to assign characters). Progress runs from 0 to 1 over the letters.
+ */
+export function fitTracedSheet(scan: TraceScanResult, options: Omit<TraceLettersOptions, 'scan'> = {}): TracedLetters {
+  const report = options.onProgress;
+  const metrics = measureSheetMetrics(scan.sheet, scan.contours);
+  const scale = options.unitsPerPixel ?? scaleFromMetrics(metrics, options.capHeightUnits ?? DEFAULT_CAP_HEIGHT_UNITS);
+  if (!(scale > 0) || !Number.isFinite(scale)) throw new RangeError(`The scale must be a positive number of font units per pixel, not ${String(scale)}.`);
+  const tolerance = Math.max(options.fit?.tolerance ?? DEFAULT_TOLERANCE, MIN_TOLERANCE_PIXELS * scale);
+  const fitOptions: FitOptions = { ...options.fit, tolerance, pixelSize: scale };
+  const notes = [...scan.notes, ...metrics.notes];
+  const letters = scan.sheet.letters.map((letter, i): TracedLetter => {
+    report?.(i / Math.max(1, scan.sheet.letters.length), 'fitting');
+    const baselineY = scan.sheet.rows[letter.row]?.baseline ?? letter.box.y + letter.box.height;
+    const frame: LetterFrame = { originX: letter.box.x, baselineY, unitsPerPixel: scale };
+    const chains: GlyphChain[] = letter.contours.flatMap((index) => {
+      const contour = scan.contours[index];
+      return contour ? [{ points: contour.points.map((p) => toFontUnits(frame, p)), depth: contour.depth }] : [];
+    });
+    const base = { index: letter.index, character: letter.character, row: letter.row, box: letter.box, frame };
+    try {
+      const fitted = fitGlyph(chains, fitOptions);
+      return { ...base, outline: fitted.outline, report: fitted.report, problem: null };
+    } catch (error) {
+      const problem = `Letter ${letter.index + 1}${letter.character ? ` (${letter.character})` : ''} could not be fitted: ${error instanceof Error ? error.message : String(error)}`;
+      notes.push(problem);
+      return { ...base, outline: null, report: null, problem };
+    }
+  });
+  report?.(1, 'done');
+  return { scan, metrics, unitsPerPixel: scale, tolerance, letters, notes };
+}

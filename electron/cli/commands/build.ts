@@ -1,0 +1,120 @@
+// `stemline build SHEET... --chars "STRING" -o FONT.otf [--family NAME] [--style NAME]
+// [--upm N] [--cap-height UNITS]`: the whole job — decode, trace, fit, metrics, font —
+// writing an OpenType (CFF) test font and printing one line per glyph. A contract
+// other tools rely on: extend it compatibly.
+import { basename } from 'node:path';
+import { decodeScanFile } from '../../io/decode-scan.ts';
+import { saveFont } from '../../io/font/write-font-file.ts';
+import { FontError } from '../../io/font/font-error.ts';
+import { glyphNameForCodePoint } from '../../io/font/glyph-names.ts';
+import { draftFont, DraftFontError, traceSheets, type DraftFont, type DraftGlyph } from '../../../core/pipeline/index.ts';
+import { DEFAULT_CAP_HEIGHT_UNITS } from '../../../core/metrics/index.ts';
+import { CliUsageError } from '../cli-usage-error.ts';
+import { numberOption, parseCommandLine } from '../parse-options.ts';
+import type { CliCommand, CliStreams } from '../run-cli.ts';
+import { EXIT_BAD_INPUT, EXIT_OK } from '../usage.ts';
+import { SCAN_OPTIONS_HELP, scanOptionSpec, scanSettingsFrom } from './scan-options.ts';
+
+const COMMAND = 'build';
+/** Units per em accepted (OpenType 'head' table: 16 to 16384). */
+const UPM_RANGE = { min: 16, max: 16384 } as const;
+/** Reference em for the default cap height: 700 of 1000 units. */
+const REFERENCE_UPM = 1000;
+
+export const buildCommand: CliCommand = {
+  name: COMMAND,
+  synopsis: 'build SHEET... --chars "STRING" -o FONT.otf [--family NAME] [--style NAME] [--upm N] [--cap-height UNITS]',
+  purpose: 'turn sheets of drawn letters into an OpenType (CFF) test font, one line printed per glyph',
+  options: [
+    '--chars STRING                 the characters drawn, in reading order across the sheets (spaces ignored)',
+    '-o, --output FONT.otf          where to write the font',
+    '--family NAME                  family name (default: the font file\'s name)',
+    '--style NAME                   style name (default Regular)',
+    '--upm N                        units per em (default 1000)',
+    `--cap-height UNITS             the drawn cap height becomes this (default ${DEFAULT_CAP_HEIGHT_UNITS} per 1000 units per em)`,
+    ...SCAN_OPTIONS_HELP.filter((line) => !line.startsWith('--characters')),
+  ],
+  async run(args, streams) {
+    const { values, positionals } = parseCommandLine(COMMAND, args, {
+      chars: { type: 'string' },
+      output: { type: 'string', short: 'o' },
+      family: { type: 'string' },
+      style: { type: 'string' },
+      upm: { type: 'string' },
+      'cap-height': { type: 'string' },
+      ...scanOptionSpec,
+    });
+    if (positionals.length === 0) throw new CliUsageError(`stemline ${COMMAND}: name at least one sheet, e.g. "stemline ${COMMAND} capitals.png --chars ABC -o draft.otf".`);
+    if (values.chars === undefined) throw new CliUsageError(`stemline ${COMMAND}: say which characters are drawn with --chars "…", in reading order.`);
+    if (values.output === undefined) throw new CliUsageError(`stemline ${COMMAND}: say where to write the font with -o FONT.otf.`);
+    if (values.characters !== undefined) throw new CliUsageError(`stemline ${COMMAND}: use --chars for the characters drawn.`);
+    const unitsPerEm = numberOption(COMMAND, 'upm', values.upm, UPM_RANGE.min, UPM_RANGE.max) ?? REFERENCE_UPM;
+    if (!Number.isInteger(unitsPerEm)) throw new CliUsageError(`stemline ${COMMAND}: --upm takes a whole number.`);
+    const capHeight = numberOption(COMMAND, 'cap-height', values['cap-height'], 1, unitsPerEm) ?? Math.round((DEFAULT_CAP_HEIGHT_UNITS * unitsPerEm) / REFERENCE_UPM);
+    const settings = scanSettingsFrom(COMMAND, values);
+
+    const images = [];
+    for (const sheet of positionals) {
+      const scan = await decodeScanFile(sheet);
+      for (const note of scan.notes) streams.err(`note: ${note}\n`);
+      const dpi = settings.dpi ?? scan.dpi;
+      images.push({ raster: dpi === undefined ? scan.raster : { ...scan.raster, dpi } });
+    }
+    let font: DraftFont;
+    try {
+      const sheets = traceSheets(images, values.chars, { scan: settings.trace, capHeightUnits: capHeight });
+      font = draftFont(sheets, {
+        familyName: values.family ?? familyFromFileName(values.output),
+        styleName: values.style ?? 'Regular',
+        unitsPerEm,
+        capHeight,
+      });
+    } catch (error) {
+      if (error instanceof DraftFontError) {
+        streams.err(`stemline ${COMMAND}: ${error.message}\n`);
+        return EXIT_BAD_INPUT;
+      }
+      throw error;
+    }
+    try {
+      await saveFont(values.output, { ...font, glyphs: font.glyphs.map(({ character, outline, advanceWidth, leftSidebearing }) => ({ character, outline, advanceWidth, leftSidebearing })) });
+    } catch (error) {
+      if (error instanceof FontError) {
+        streams.err(`stemline ${COMMAND}: ${basename(values.output)}: ${error.message}\n`);
+        return EXIT_BAD_INPUT;
+      }
+      throw error;
+    }
+    printSummary(font, streams);
+    streams.err(`wrote ${values.output}: ${font.glyphs.length} glyphs, ${font.unitsPerEm} units per em, cap height ${font.capHeight}, x-height ${font.xHeight}\n`);
+    for (const note of font.notes) streams.err(`note: ${note}\n`);
+    return EXIT_OK;
+  },
+};
+
+/** "harbour-signs.otf" → "Harbour Signs". */
+function familyFromFileName(path: string): string {
+  const stem = basename(path).replace(/\.[^.]+$/, '').replace(/[-_]+/g, ' ').trim();
+  return stem.length > 0 ? stem.replace(/\b\w/g, (c) => c.toUpperCase()) : 'Untitled';
+}
+
+/** One line per glyph, tab-separated: character, code point, glyph name, advance, segments, on-curve points, corners, max deviation, warnings. */
+function printSummary(font: DraftFont, streams: CliStreams): void {
+  for (const glyph of font.glyphs) streams.out(`${summaryLine(glyph)}\n`);
+}
+
+export function summaryLine(glyph: DraftGlyph): string {
+  const report = glyph.source.letter.report;
+  const code = `U+${(glyph.character.codePointAt(0) ?? 0).toString(16).toUpperCase().padStart(4, '0')}`;
+  return [
+    glyph.character,
+    code,
+    glyphNameForCodePoint(glyph.character.codePointAt(0) ?? 0),
+    `advance ${glyph.advanceWidth}`,
+    `segments ${report?.segmentCount ?? 0}`,
+    `on-curve ${report?.onCurveCount ?? 0}`,
+    `corners ${report?.cornerCount ?? 0}`,
+    `max-deviation ${(report?.maxDeviation ?? 0).toFixed(2)}`,
+    `warnings ${report?.warnings.length ?? 0}`,
+  ].join('\t');
+}

@@ -1,0 +1,142 @@
+/// <reference path="./opentype-js.d.ts" />
+// Reads an existing font — OpenType with CFF outlines (.otf), TrueType (.ttf) or
+// either inside WOFF 1.0 — into Stemline's outline model, so a lettering artist can
+// compare their letters with a reference face, start from one, or check a font
+// Stemline wrote. Parsing is opentype.js 2.0.0's; the outlines become cubic contours
+// (path-to-outline.ts) with smooth joins recovered (smooth-joins.ts). The result is
+// a FontSource, so it can be written straight back out.
+import { basename } from 'node:path';
+import opentype, { type Font, type Glyph } from 'opentype.js/dist/opentype.js';
+import type { GlyphOutline } from '../../../core/outline/index.ts';
+import { InputError } from '../input-error.ts';
+import { isEncodable } from './code-points.ts';
+import { identifyFontContainer, type FontContainer } from './font-container.ts';
+import { DEFAULT_WEIGHT_CLASS, type FontGlyph, type FontSource } from './font-model.ts';
+import { glyphNameForCodePoint, isValidGlyphName, NOTDEF_GLYPH_NAME } from './glyph-names.ts';
+import { tightBounds } from './integer-outline.ts';
+import { pathToOutline } from './path-to-outline.ts';
+import { withSmoothJoins } from './smooth-joins.ts';
+
+/**
+ * A glyph as read: a FontGlyph with its index, all its characters and a name that is
+ * always valid and unique. It has no `leftSidebearing`: the outline is already where
+ * the font puts it, and a separate number would move it when written back (the
+ * writer places outlines at a given sidebearing).
+ */
+export interface ReadGlyph extends FontGlyph {
+  /** Glyph index in the font (0 is .notdef). */
+  readonly index: number;
+  readonly name: string;
+  /** Every character the font's cmap maps to this glyph, lowest first; `character` is the first that a font can encode. */
+  readonly characters: readonly string[];
+}
+
+export interface ReadFont extends FontSource {
+  readonly fileName: string;
+  readonly outlineFormat: 'cff' | 'truetype';
+  readonly container: FontContainer;
+  readonly unitsPerEm: number;
+  readonly lineGap: number;
+  readonly weightClass: number;
+  readonly glyphs: readonly ReadGlyph[];
+}
+
+/** OS/2 versions 2 and later carry sxHeight and sCapHeight (OpenType spec, 'OS/2'). */
+const OS2_VERSION_WITH_HEIGHTS = 2;
+/** usWeightClass range (OpenType spec, 'OS/2'). */
+const MIN_WEIGHT_CLASS = 1;
+const MAX_WEIGHT_CLASS = 1000;
+/** Glyph names made up for unnamed glyphs: "glyph" and five digits of the index (common practice). */
+const GLYPH_INDEX_DIGITS = 5;
+
+function parse(bytes: Uint8Array, fileName: string): Font {
+  // opentype.parse reads from offset 0 of the ArrayBuffer, so a view into a pooled buffer must be copied out.
+  const buffer = bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer;
+  try {
+    return opentype.parse(buffer);
+  } catch (error) {
+    const reason = error instanceof Error ? error.message : String(error);
+    throw new InputError('font-unreadable', fileName, `${fileName}: the font is damaged and cannot be read (${reason}). Export it again or try another copy.`);
+  }
+}
+
+function outlineOf(glyph: Glyph, fileName: string): GlyphOutline {
+  let commands;
+  try {
+    commands = glyph.path.commands;
+  } catch (error) {
+    const reason = error instanceof Error ? error.message : String(error);
+    throw new InputError('font-unreadable', fileName, `${fileName}: the outline of glyph ${glyph.index} is damaged (${reason}). Export the font again.`);
+  }
+  return { contours: pathToOutline(commands).contours.map(withSmoothJoins) };
+}
+
+/** The top of the ink of the glyph for `character` (0 without one), for fonts that do not state x-height or cap height. */
+function heightFromGlyph(glyphs: readonly ReadGlyph[], character: string): number {
+  const outline = glyphs.find((g) => g.character === character)?.outline;
+  return outline === undefined ? 0 : Math.round(tightBounds(outline)?.maxY ?? 0);
+}
+
+/**
+ * The font in `bytes` (`fileName` is used in messages). Throws InputError:
+ * 'font-unsupported' for WOFF2, collections and outline formats other than CFF and
+ * TrueType; 'font-unreadable' for files that are not fonts, are cut short or damaged.
+ */
+export function readFont(bytes: Uint8Array, fileName: string): ReadFont {
+  const container = identifyFontContainer(bytes, fileName);
+  const font = parse(bytes, fileName);
+  const outlineFormat = font.outlinesFormat;
+  if (outlineFormat !== 'cff' && outlineFormat !== 'truetype') {
+    throw new InputError('font-unsupported', fileName, `${fileName}: its outlines are in the "${outlineFormat}" format; Stemline reads CFF (.otf) and TrueType (.ttf) outlines.`);
+  }
+
+  const usedNames = new Set<string>();
+  const glyphs: ReadGlyph[] = [];
+  for (let index = 0; index < font.glyphs.length; index++) {
+    const glyph = font.glyphs.get(index);
+    if (glyph === undefined) continue;
+    const codePoints = [...glyph.unicodes].sort((a, b) => a - b);
+    const primary = index === 0 ? undefined : codePoints.find(isEncodable);
+    const fontName = index === 0 ? NOTDEF_GLYPH_NAME : glyph.name;
+    let name = fontName !== null && isValidGlyphName(fontName) && !usedNames.has(fontName) ? fontName : primary !== undefined ? glyphNameForCodePoint(primary) : '';
+    if (name === '' || usedNames.has(name)) name = `glyph${String(index).padStart(GLYPH_INDEX_DIGITS, '0')}`;
+    usedNames.add(name);
+    const outline = outlineOf(glyph, fileName);
+    glyphs.push({
+      index,
+      name,
+      character: primary === undefined ? '' : String.fromCodePoint(primary),
+      characters: codePoints.map((c) => String.fromCodePoint(c)),
+      outline,
+      advanceWidth: glyph.advanceWidth ?? 0,
+    });
+  }
+
+  const os2 = font.tables.os2;
+  const hhea = font.tables.hhea;
+  // The typo values where the font has them (OpenType spec, 'OS/2': the recommended line metrics), else hhea's.
+  const ascender = os2 !== undefined && os2.sTypoAscender > 0 ? os2.sTypoAscender : (hhea?.ascender ?? font.ascender);
+  const descender = Math.min(0, os2?.sTypoDescender ?? hhea?.descender ?? font.descender);
+  const hasHeights = os2 !== undefined && os2.version >= OS2_VERSION_WITH_HEIGHTS;
+  const xHeight = hasHeights && (os2.sxHeight ?? 0) > 0 ? os2.sxHeight! : heightFromGlyph(glyphs, 'x');
+  const capHeight = hasHeights && (os2.sCapHeight ?? 0) > 0 ? os2.sCapHeight! : heightFromGlyph(glyphs, 'H');
+  const weight = os2?.usWeightClass;
+  const familyName = font.getEnglishName('preferredFamily') ?? font.getEnglishName('fontFamily') ?? basename(fileName).replace(/\.[^.]*$/, '');
+  const styleName = font.getEnglishName('preferredSubfamily') ?? font.getEnglishName('fontSubfamily') ?? 'Regular';
+
+  return {
+    fileName,
+    outlineFormat,
+    container,
+    familyName,
+    styleName,
+    unitsPerEm: font.unitsPerEm,
+    ascender,
+    descender,
+    lineGap: Math.max(0, os2?.sTypoLineGap ?? hhea?.lineGap ?? 0),
+    xHeight,
+    capHeight,
+    weightClass: weight !== undefined && weight >= MIN_WEIGHT_CLASS && weight <= MAX_WEIGHT_CLASS ? weight : DEFAULT_WEIGHT_CLASS,
+    glyphs,
+  };
+}

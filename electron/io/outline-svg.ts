@@ -1,0 +1,57 @@
+// Writes fitted letters as SVG on the scan's pixel frame (viewBox = the image, pixel
+// (col,row) covers [col,col+1]×[row,row+1], y down): one <path> per letter, absolute
+// M, L, C and Z commands only, fill rule nonzero. Outer contours and holes wind
+// oppositely (the font-unit outline's directions, mirrored by the y flip), so the
+// holes show. Other tools read this output: keep it stable.
+import { contourSegments } from '../../core/outline/index.ts';
+import { toScanPixels, type TracedLetter } from '../../core/pipeline/index.ts';
+import type { Point } from '../../core/geometry/index.ts';
+
+/** Decimal places: 1/1000 px is below a font unit at any sensible scale. */
+const COORDINATE_DECIMALS = 3;
+
+function formatNumber(value: number): string {
+  const text = value.toFixed(COORDINATE_DECIMALS).replace(/\.?0+$/, '');
+  return text === '-0' ? '0' : text;
+}
+
+function xy(p: Point): string {
+  return `${formatNumber(p.x)} ${formatNumber(p.y)}`;
+}
+
+function escapeAttribute(text: string): string {
+  return text.replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' })[c] ?? c);
+}
+
+/** Path data of a letter's outline on the scan: absolute M/L/C/Z. */
+export function letterPathData(letter: TracedLetter): string {
+  if (!letter.outline) return '';
+  const px = (p: Point) => xy(toScanPixels(letter.frame, p));
+  return letter.outline.contours
+    .map((contour) => {
+      const segments = contourSegments(contour);
+      const first = segments[0];
+      if (!first) return '';
+      const parts = [`M${px(first.p0)}`];
+      for (const segment of segments) {
+        parts.push(segment.kind === 'line' ? `L${px(segment.p1)}` : `C${px(segment.p1)} ${px(segment.p2)} ${px(segment.p3)}`);
+      }
+      return `${parts.join(' ')} Z`;
+    })
+    .filter((d) => d.length > 0)
+    .join(' ');
+}
+
+export function outlineSvg(width: number, height: number, letters: readonly TracedLetter[]): string {
+  const lines = [
+    '<?xml version="1.0" encoding="UTF-8"?>',
+    `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${width} ${height}" width="${width}" height="${height}">`,
+  ];
+  for (const letter of letters) {
+    if (!letter.outline) continue;
+    const character = letter.character === null ? '' : ` data-character="${escapeAttribute(letter.character)}"`;
+    lines.push(`  <path id="letter-${letter.index}" data-row="${letter.row}"${character} fill-rule="nonzero" d="${letterPathData(letter)}"/>`);
+  }
+  lines.push('</svg>', '');
+  return lines.join('\n');
+}
