@@ -8,6 +8,7 @@
 import { createCanvas } from '@napi-rs/canvas';
 import type { Bench, Task } from 'tinybench';
 import { binarize, cleanupMask, traceBoundaries, type GreyRaster } from '../../core/raster/index.ts';
+import { seededRandom } from '../support/seeded-random.ts';
 
 /** US Letter at 600 dpi: 8.5 in × 11 in. */
 export const PAGE_WIDTH = 5100;
@@ -24,17 +25,6 @@ const MARGIN = 300;
 const NOISE_AMPLITUDE = 12;
 const SPECK_COUNT = 400;
 
-/** Mulberry32 (T. Ettinger, public domain), so the page is the same on every run. */
-function seededRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /**
  * A page of procedural letters (bowls, stems, arches, dots) drawn anti-aliased by

@@ -74,9 +74,18 @@ function peakResidentMiB(): number {
   return process.resourceUsage().maxRSS / 1024;
 }
 
+/** `npm run bench -- peers fitting` runs only the named suites; no names runs them all. */
+const wanted = process.argv.slice(2);
+const unknown = wanted.filter((name) => !suites.some((suite) => suite.name === name));
+if (unknown.length > 0) {
+  console.error(`No benchmark suite named ${unknown.map((n) => `"${n}"`).join(', ')}. Suites: ${suites.map((s) => `"${s.name}"`).join(', ')}.`);
+  process.exit(2);
+}
+const selected = wanted.length === 0 ? suites : suites.filter((suite) => wanted.includes(suite.name));
+
 const reports: TaskReport[] = [];
 const notes: Array<{ suite: string; lines: string[]; peakResidentMiB: number }> = [];
-for (const suite of suites) {
+for (const suite of selected) {
   const bench = new Bench({ time: MEASURE_MS, warmupTime: WARMUP_MS, ...suite.options });
   suite.register(bench);
   await bench.run();

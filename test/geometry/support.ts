@@ -7,20 +7,8 @@ import { controlPoints, cubic, endPoint, line, quad, segmentFromControlPoints } 
 /** Fixed fast-check settings: reproducible runs, and enough of them to find edge cases. */
 export const PROPERTY_SETTINGS = { seed: 20240611, numRuns: 300 } as const;
 
-/**
- * Mulberry32, a small seeded 32-bit PRNG (Tommy Ettinger, public domain), so that the
- * random-curve comparisons see the same curves on every run.
- */
-export function seededRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let z = state;
-    z = Math.imul(z ^ (z >>> 15), z | 1);
-    z ^= z + Math.imul(z ^ (z >>> 7), z | 61);
-    return ((z ^ (z >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** The shared seeded generator, so the random-curve comparisons see the same curves on every run. */
+export { seededRandom } from '../support/seeded-random.ts';
 
 /** A random point with coordinates uniform in [−extent, extent]. */
 export function randomPoint(random: () => number, extent: number): Point {

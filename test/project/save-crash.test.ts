@@ -9,6 +9,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { loadProject, saveProject } from '../../electron/io/project/project-file.ts';
 import { newProject } from '../../electron/io/project/new-project.ts';
+import { seededRandom } from '../support/seeded-random.ts';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 /**
@@ -20,17 +21,6 @@ const NODE_ARGS = ['--import', 'tsx'];
 /** Kills per run: each one lands at a different moment of some save. */
 const KILLS = 12;
 
-/** Mulberry32 (public domain), so the kill moments replay. */
-function seededRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function runAndKill(path: string, delayMs: number): Promise<void> {
   return new Promise((resolve, reject) => {

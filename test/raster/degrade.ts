@@ -3,18 +3,9 @@
 // sensor noise from a seeded generator (tests must be repeatable), and dust specks.
 
 import type { GreyRaster } from '../../core/raster/index.ts';
+import { seededRandom } from '../support/seeded-random.ts';
+export { seededRandom };
 
-/** Mulberry32, a small seeded 32-bit generator (T. Ettinger, public domain): uniform in [0, 1). */
-export function seededRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Standard normal deviates by the Box–Muller transform (Box & Muller 1958). */
 export function gaussianSource(random: () => number): () => number {

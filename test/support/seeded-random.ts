@@ -1,0 +1,13 @@
+// The one seeded generator the tests and benchmarks use, so every random case and
+// every synthetic page replays exactly: Mulberry32, a small 32-bit generator
+// (T. Ettinger, public domain), uniform in [0, 1).
+export function seededRandom(seed: number): () => number {
+  let state = seed >>> 0;
+  return () => {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let t = state;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
