@@ -9,7 +9,7 @@ import { checkOutline, contourDepths } from '../../core/checks/index.ts';
 import { contourFromSegments, reverseContour, type GlyphOutline } from '../../core/outline/index.ts';
 import { cubic, line } from '../../core/geometry/index.ts';
 import { readFont } from '../../electron/io/font/read-font.ts';
-import { CANTARELL, describeWithFont } from '../raster/require-font.ts';
+import { CANTARELL, DEJAVU_SANS, describeWithFont, type ReferenceFont } from '../raster/require-font.ts';
 
 /** Handle factor of the four-arc circle, 4/3·(√2 − 1) (the standard Bézier circle approximation). */
 const K = (4 / 3) * (Math.SQRT2 - 1);
@@ -97,13 +97,15 @@ describe('outline checks', () => {
   });
 });
 
-describeWithFont('outline checks on a professionally drawn font', CANTARELL, () => {
-  it('find every contour of Cantarell A–Z a–z 0–9 running the right way', () => {
-    const font = readFont(readFileSync(CANTARELL.path), 'Cantarell-Regular.otf');
-    const wanted = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789';
-    const glyphs = font.glyphs.filter((g) => wanted.includes(g.character) && g.character !== '');
-    expect(glyphs).toHaveLength(wanted.length);
-    const wrong = glyphs.flatMap((g) => checkOutline(g.outline).filter((w) => w.kind === 'wrong-direction').map((w) => `${g.character}: ${w.message}`));
-    expect(wrong).toEqual([]);
+for (const reference of [CANTARELL, DEJAVU_SANS] satisfies ReferenceFont[]) {
+  describeWithFont(`outline checks on ${reference.label}`, reference, () => {
+    it('find every contour of A–Z a–z 0–9 running the CFF way (TrueType contours are reversed on reading)', () => {
+      const font = readFont(readFileSync(reference.path), reference.path);
+      const wanted = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789';
+      const glyphs = font.glyphs.filter((g) => g.character !== '' && wanted.includes(g.character));
+      expect(glyphs).toHaveLength(wanted.length);
+      const wrong = glyphs.flatMap((g) => checkOutline(g.outline).filter((w) => w.kind === 'wrong-direction').map((w) => `${g.character}: ${w.message}`));
+      expect(wrong).toEqual([]);
+    });
   });
-});
+}

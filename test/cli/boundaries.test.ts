@@ -6,7 +6,7 @@ import { createCanvas } from '@napi-rs/canvas';
 import { mkdtempSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { runCli } from '../../electron/cli/run-cli.ts';
+import { runCaptured as run } from './run-captured.ts';
 
 const folder = mkdtempSync(join(tmpdir(), 'stemline-boundaries-'));
 
@@ -35,12 +35,6 @@ function drawSheet(): string {
   return path;
 }
 
-async function run(argv: string[]) {
-  let out = '';
-  let err = '';
-  const code = await runCli(argv, { out: (t) => (out += t), err: (t) => (err += t) });
-  return { code, out, err };
-}
 
 describe('stemline boundaries', () => {
   const sheet = drawSheet();

@@ -9,7 +9,7 @@ import { mkdtempSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import * as fontkit from 'fontkit';
-import { runCli } from '../../electron/cli/run-cli.ts';
+import { runCaptured as run } from './run-captured.ts';
 import { addGlyphPath, loadFont, renderAntialiased } from '../raster/reference-render.ts';
 import { CANTARELL, describeWithFont } from '../raster/require-font.ts';
 import { checkRequirement, OTS_SANITIZE } from '../support/require-tool.ts';
@@ -19,12 +19,6 @@ const folder = mkdtempSync(join(tmpdir(), 'stemline-build-'));
 /** Pixels per font unit of the reference sheet: capitals about 208 px tall, as at 600 dpi. */
 const SCALE = 0.3;
 
-async function run(argv: string[]) {
-  let out = '';
-  let err = '';
-  const code = await runCli(argv, { out: (t) => (out += t), err: (t) => (err += t) });
-  return { code, out, err };
-}
 
 describeWithFont('stemline build', CANTARELL, () => {
   const ots = checkRequirement(OTS_SANITIZE);

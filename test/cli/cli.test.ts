@@ -4,17 +4,11 @@ import { describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { runCli } from '../../electron/cli/run-cli.ts';
+import { runCaptured as run } from './run-captured.ts';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const pkg = JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as { version: string };
 
-async function run(argv: string[]) {
-  let out = '';
-  let err = '';
-  const code = await runCli(argv, { out: (t) => (out += t), err: (t) => (err += t) });
-  return { code, out, err };
-}
 
 describe('stemline command line', () => {
   it('prints its version as "stemline X.Y.Z" and exits 0', async () => {

@@ -6,18 +6,12 @@ import { describe, expect, it } from 'vitest';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { runCli } from '../../electron/cli/run-cli.ts';
+import { runCaptured as run } from './run-captured.ts';
 import { loadProject } from '../../electron/io/project/project-file.ts';
 import { CANTARELL, describeWithFont } from '../raster/require-font.ts';
 
 const folder = mkdtempSync(join(tmpdir(), 'stemline-import-'));
 
-async function run(argv: string[]) {
-  let out = '';
-  let err = '';
-  const code = await runCli(argv, { out: (t) => (out += t), err: (t) => (err += t) });
-  return { code, out, err };
-}
 
 describeWithFont('stemline import and check', CANTARELL, () => {
   const project = join(folder, 'cantarell.stemline');

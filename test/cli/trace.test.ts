@@ -8,7 +8,7 @@ import { createCanvas } from '@napi-rs/canvas';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { runCli } from '../../electron/cli/run-cli.ts';
+import { runCaptured as run } from './run-captured.ts';
 
 const folder = mkdtempSync(join(tmpdir(), 'stemline-trace-'));
 
@@ -32,12 +32,6 @@ function drawShapes(): string {
   return path;
 }
 
-async function run(argv: string[]) {
-  let out = '';
-  let err = '';
-  const code = await runCli(argv, { out: (t) => (out += t), err: (t) => (err += t) });
-  return { code, out, err };
-}
 
 /** Signed area (shoelace, y down) of each subpath, using all points of M/L/C commands as a polygon. */
 function subpathAreas(d: string): number[] {

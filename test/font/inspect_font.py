@@ -17,6 +17,8 @@ import warnings
 
 from fontTools.pens.basePen import BasePen
 from fontTools.pens.boundsPen import BoundsPen
+from fontTools.pens.reverseContourPen import ReverseContourPen
+from fontTools.pens.recordingPen import DecomposingRecordingPen
 from fontTools.ttLib import TTFont
 
 
@@ -112,9 +114,20 @@ def main():
         glyph_set = font.getGlyphSet()
         outlines = {}
         bounds = {}
+        # TrueType contours run clockwise; Stemline's outline model uses the CFF
+        # direction (outer contours counter-clockwise), so a glyf font's reference
+        # drawing goes through fontTools' own ReverseContourPen, which keeps each
+        # contour's first point. Composite glyphs are decomposed first, so that their
+        # components' contours are reversed too.
+        truetype = "glyf" in font
         for name in (wanted or order):
             pen = CubicRecordingPen(glyph_set)
-            glyph_set[name].draw(pen)
+            if truetype:
+                decomposed = DecomposingRecordingPen(glyph_set)
+                glyph_set[name].draw(decomposed)
+                decomposed.replay(ReverseContourPen(pen))
+            else:
+                glyph_set[name].draw(pen)
             outlines[name] = pen.value
             bounds_pen = BoundsPen(glyph_set)
             glyph_set[name].draw(bounds_pen)

@@ -7,7 +7,7 @@
 // a FontSource, so it can be written straight back out.
 import { basename } from 'node:path';
 import opentype, { type Font, type Glyph } from 'opentype.js/dist/opentype.js';
-import type { GlyphOutline } from '../../../core/outline/index.ts';
+import { reverseContour, type GlyphOutline } from '../../../core/outline/index.ts';
 import { InputError } from '../input-error.ts';
 import { isEncodable } from './code-points.ts';
 import { identifyFontContainer, type FontContainer } from './font-container.ts';
@@ -60,7 +60,12 @@ function parse(bytes: Uint8Array, fileName: string): Font {
   }
 }
 
-function outlineOf(glyph: Glyph, fileName: string): GlyphOutline {
+/**
+ * TrueType contours run clockwise around ink (OpenType 'glyf'); Stemline's model uses
+ * the CFF direction, outer contours counter-clockwise, so TrueType contours are
+ * reversed on reading (each keeps its first on-curve point).
+ */
+function outlineOf(glyph: Glyph, fileName: string, truetype: boolean): GlyphOutline {
   let commands;
   try {
     commands = glyph.path.commands;
@@ -68,7 +73,8 @@ function outlineOf(glyph: Glyph, fileName: string): GlyphOutline {
     const reason = error instanceof Error ? error.message : String(error);
     throw new InputError('font-unreadable', fileName, `${fileName}: the outline of glyph ${glyph.index} is damaged (${reason}). Export the font again.`);
   }
-  return { contours: pathToOutline(commands).contours.map(withSmoothJoins) };
+  const contours = pathToOutline(commands).contours.map(withSmoothJoins);
+  return { contours: truetype ? contours.map(reverseContour) : contours };
 }
 
 /** The top of the ink of the glyph for `character` (0 without one), for fonts that do not state x-height or cap height. */
@@ -101,7 +107,7 @@ export function readFont(bytes: Uint8Array, fileName: string): ReadFont {
     let name = fontName !== null && isValidGlyphName(fontName) && !usedNames.has(fontName) ? fontName : primary !== undefined ? glyphNameForCodePoint(primary) : '';
     if (name === '' || usedNames.has(name)) name = `glyph${String(index).padStart(GLYPH_INDEX_DIGITS, '0')}`;
     usedNames.add(name);
-    const outline = outlineOf(glyph, fileName);
+    const outline = outlineOf(glyph, fileName, outlineFormat === 'truetype');
     glyphs.push({
       index,
       name,
