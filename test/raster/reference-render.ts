@@ -54,6 +54,10 @@ export function renderAntialiased(width: number, height: number, draw: (context:
   context.setTransform(supersampling, 0, 0, supersampling, 0, 0);
   draw(context);
   const rgba = context.getImageData(0, 0, bigWidth, bigHeight).data;
+  // Release the large native surface now: the garbage collector does not see Skia's
+  // memory, so a run of renders would otherwise hold gigabytes until it happens to run.
+  context.canvas.width = 1;
+  context.canvas.height = 1;
   const sums = new Float64Array(width * height);
   for (let row = 0; row < bigHeight; row++) {
     const target = Math.floor(row / supersampling) * width;
