@@ -109,8 +109,9 @@ export function draftFont(sheets: readonly TracedLetters[], settings: DraftFontS
     xHeight = Math.round(capHeight * FALLBACK_X_HEIGHT_PER_CAP);
     notes.push(`The x-height was not measured (no x, z, v, w, y or u assigned); ${xHeight} units is a placeholder to change.`);
   }
-  const inkTop = Math.max(capHeight, ...glyphs.map((g) => boundsOfSegments(g.outline.contours.flatMap((c) => contourSegments(c)))?.maxY ?? 0));
-  const inkBottom = Math.min(0, ...glyphs.map((g) => boundsOfSegments(g.outline.contours.flatMap((c) => contourSegments(c)))?.minY ?? 0));
+  const inkBounds = glyphs.map((g) => boundsOfSegments(g.outline.contours.flatMap((c) => contourSegments(c))));
+  const inkTop = Math.max(capHeight, ...inkBounds.map((b) => b?.maxY ?? 0));
+  const inkBottom = Math.min(0, ...inkBounds.map((b) => b?.minY ?? 0));
   const ascender = Math.max(measuredUnits(sheets, (s) => s.metrics.ascender?.pixels) ?? Math.round(capHeight * FALLBACK_ASCENDER_PER_CAP), capHeight);
   const measuredDescender = measuredUnits(sheets, (s) => s.metrics.descender?.pixels);
   // Without a measured descender, typo ascender − descender spans one em (common practice).

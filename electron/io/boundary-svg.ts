@@ -3,18 +3,8 @@
 // per letter holding all its contours (outlines and holes) as closed polylines.
 // Outlines and holes wind oppositely, so the nonzero fill rule shows the holes.
 import type { Contour, SheetSegmentation } from '../../core/raster/index.ts';
+import { escapeAttribute, formatCoordinate, svgHeader } from './svg-format.ts';
 
-/** Decimal places of coordinates: 1/1000 px is far below any boundary's accuracy. */
-const COORDINATE_DECIMALS = 3;
-
-function formatNumber(value: number): string {
-  const text = value.toFixed(COORDINATE_DECIMALS).replace(/\.?0+$/, '');
-  return text === '-0' ? '0' : text;
-}
-
-function escapeAttribute(text: string): string {
-  return text.replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' })[c] ?? c);
-}
 
 /** Path data for closed polylines: absolute M, L and Z only. */
 export function polylinePathData(contours: readonly Contour[]): string {
@@ -22,8 +12,8 @@ export function polylinePathData(contours: readonly Contour[]): string {
     .map((contour) => {
       const [first, ...rest] = contour.points;
       if (!first) return '';
-      const moves = [`M${formatNumber(first.x)} ${formatNumber(first.y)}`];
-      for (const point of rest) moves.push(`L${formatNumber(point.x)} ${formatNumber(point.y)}`);
+      const moves = [`M${formatCoordinate(first.x)} ${formatCoordinate(first.y)}`];
+      for (const point of rest) moves.push(`L${formatCoordinate(point.x)} ${formatCoordinate(point.y)}`);
       return `${moves.join(' ')} Z`;
     })
     .filter((d) => d.length > 0)
@@ -32,10 +22,7 @@ export function polylinePathData(contours: readonly Contour[]): string {
 
 /** The whole SVG document for a traced sheet. */
 export function boundarySvg(width: number, height: number, contours: readonly Contour[], sheet: SheetSegmentation): string {
-  const lines = [
-    '<?xml version="1.0" encoding="UTF-8"?>',
-    `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${width} ${height}" width="${width}" height="${height}">`,
-  ];
+  const lines = svgHeader(width, height);
   for (const letter of sheet.letters) {
     const members = letter.contours.map((index) => contours[index]).filter((c): c is Contour => c !== undefined);
     const character = letter.character === null ? '' : ` data-character="${escapeAttribute(letter.character)}"`;

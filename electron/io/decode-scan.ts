@@ -4,9 +4,9 @@
 // multi-page file), WebP. The header is read first, so an oversized or bogus image
 // is refused before any pixels are decoded.
 import sharp, { type Metadata } from 'sharp';
-import { readFile } from 'node:fs/promises';
 import { basename } from 'node:path';
 import { InputError } from './input-error.ts';
+import { readInputFile } from './read-input-file.ts';
 import { readImageHeader } from '../../core/raster/image-header.ts';
 
 /**
@@ -37,15 +37,7 @@ export interface DecodedScan {
 
 /** Reads and decodes the scan at `path`. Throws `InputError` with a user-facing message. */
 export async function decodeScanFile(path: string): Promise<DecodedScan> {
-  let bytes: Buffer;
-  try {
-    bytes = await readFile(path);
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    const why = code === 'ENOENT' ? 'there is no such file' : code === 'EISDIR' ? 'it is a folder, not an image' : code === 'EACCES' ? 'permission was denied' : `it could not be read (${code ?? String(error)})`;
-    throw new InputError('file-unreadable', path, `${basename(path)}: ${why}.`);
-  }
-  return decodeScanBytes(bytes, basename(path));
+  return decodeScanBytes(await readInputFile(path), basename(path));
 }
 
 /** Decodes scan bytes; `name` is used in messages. Throws `InputError`. */

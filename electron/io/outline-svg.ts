@@ -6,21 +6,10 @@
 import { contourSegments } from '../../core/outline/index.ts';
 import { toScanPixels, type TracedLetter } from '../../core/pipeline/index.ts';
 import type { Point } from '../../core/geometry/index.ts';
-
-/** Decimal places: 1/1000 px is below a font unit at any sensible scale. */
-const COORDINATE_DECIMALS = 3;
-
-function formatNumber(value: number): string {
-  const text = value.toFixed(COORDINATE_DECIMALS).replace(/\.?0+$/, '');
-  return text === '-0' ? '0' : text;
-}
+import { escapeAttribute, formatCoordinate, svgHeader } from './svg-format.ts';
 
 function xy(p: Point): string {
-  return `${formatNumber(p.x)} ${formatNumber(p.y)}`;
-}
-
-function escapeAttribute(text: string): string {
-  return text.replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' })[c] ?? c);
+  return `${formatCoordinate(p.x)} ${formatCoordinate(p.y)}`;
 }
 
 /** Path data of a letter's outline on the scan: absolute M/L/C/Z. */
@@ -43,10 +32,7 @@ export function letterPathData(letter: TracedLetter): string {
 }
 
 export function outlineSvg(width: number, height: number, letters: readonly TracedLetter[]): string {
-  const lines = [
-    '<?xml version="1.0" encoding="UTF-8"?>',
-    `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${width} ${height}" width="${width}" height="${height}">`,
-  ];
+  const lines = svgHeader(width, height);
   for (const letter of letters) {
     if (!letter.outline) continue;
     const character = letter.character === null ? '' : ` data-character="${escapeAttribute(letter.character)}"`;

@@ -1,8 +1,7 @@
 // What the project overview shows about a project, derived from project state.
 // Until scans are imported a project is empty: no glyphs, default font settings.
 
-/** Units per em of a new project's font: 1000 is the CFF/PostScript convention. */
-export const DEFAULT_UNITS_PER_EM = 1000;
+import { DEFAULT_UNITS_PER_EM } from '../../core/metrics/units-per-em.ts';
 
 export interface ProjectSummary {
   title: string;

@@ -4,7 +4,7 @@
 // winding. Written for the round-trip tests; they use only core/geometry and
 // core/outline, so the figures do not depend on the fitter's own report.
 
-import type { PathCommand } from 'opentype.js';
+import type { PathCommand } from 'opentype.js/dist/opentype.js';
 import { cubic, evaluate, line, signedArea, type Point } from '../../core/geometry/index.ts';
 import { contourSegments, type GlyphOutline, type OutlineSegment } from '../../core/outline/index.ts';
 import { segmentExtrema, turnAtJoin } from '../../core/fit/index.ts';

@@ -7,7 +7,7 @@
 // subset (round-trip.test.ts); the benchmark runner calls measureRoundTrip for all of
 // A–Z a–z 0–9.
 
-import type { PathCommand } from 'opentype.js';
+import type { PathCommand } from 'opentype.js/dist/opentype.js';
 import { traceScan, type GreyRaster } from '../../core/raster/index.ts';
 import { fitGlyph, type FitOptions } from '../../core/fit/index.ts';
 import { degrade, type Degradation } from '../raster/degrade.ts';

@@ -4,7 +4,7 @@
 // fonts-linuxlibertine and fonts-dejavu-core (see require-font.ts).
 
 import { describe, expect, it } from 'vitest';
-import type { PathCommand } from 'opentype.js';
+import type { PathCommand } from 'opentype.js/dist/opentype.js';
 import { traceScan, type Contour, type GreyRaster, type Point } from '../../core/raster/index.ts';
 import { degrade, type Degradation } from './degrade.ts';
 import {

@@ -6,7 +6,7 @@
 
 import { readFileSync } from 'node:fs';
 import { createCanvas, type SKRSContext2D } from '@napi-rs/canvas';
-import opentype, { type Font, type PathCommand } from 'opentype.js';
+import opentype, { type Font, type PathCommand } from 'opentype.js/dist/opentype.js';
 import type { GreyRaster, Point } from '../../core/raster/index.ts';
 
 /** A white canvas with a black fill style, ready to draw on. */

@@ -4,7 +4,7 @@
 // order. The sheet is rendered from a reference font so the truth is known exactly.
 
 import { describe, expect, it } from 'vitest';
-import type { PathCommand } from 'opentype.js';
+import type { PathCommand } from 'opentype.js/dist/opentype.js';
 import { segmentSheet, traceScan, type Box } from '../../core/raster/index.ts';
 import { addGlyphPath, loadFont, renderAntialiased, toPixel, type FontPlacement } from './reference-render.ts';
 import { CANTARELL, describeWithFont } from './require-font.ts';

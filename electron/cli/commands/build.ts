@@ -8,7 +8,7 @@ import { saveFont } from '../../io/font/write-font-file.ts';
 import { FontError } from '../../io/font/font-error.ts';
 import { glyphNameForCodePoint } from '../../io/font/glyph-names.ts';
 import { draftFont, DraftFontError, traceSheets, type DraftFont, type DraftGlyph } from '../../../core/pipeline/index.ts';
-import { DEFAULT_CAP_HEIGHT_UNITS } from '../../../core/metrics/index.ts';
+import { DEFAULT_CAP_HEIGHT_UNITS, DEFAULT_UNITS_PER_EM } from '../../../core/metrics/index.ts';
 import { CliUsageError } from '../cli-usage-error.ts';
 import { numberOption, parseCommandLine } from '../parse-options.ts';
 import type { CliCommand, CliStreams } from '../run-cli.ts';
@@ -18,8 +18,6 @@ import { SCAN_OPTIONS_HELP, scanOptionSpec, scanSettingsFrom } from './scan-opti
 const COMMAND = 'build';
 /** Units per em accepted (OpenType 'head' table: 16 to 16384). */
 const UPM_RANGE = { min: 16, max: 16384 } as const;
-/** Reference em for the default cap height: 700 of 1000 units. */
-const REFERENCE_UPM = 1000;
 
 export const buildCommand: CliCommand = {
   name: COMMAND,
@@ -48,9 +46,9 @@ export const buildCommand: CliCommand = {
     if (values.chars === undefined) throw new CliUsageError(`stemline ${COMMAND}: say which characters are drawn with --chars "…", in reading order.`);
     if (values.output === undefined) throw new CliUsageError(`stemline ${COMMAND}: say where to write the font with -o FONT.otf.`);
     if (values.characters !== undefined) throw new CliUsageError(`stemline ${COMMAND}: use --chars for the characters drawn.`);
-    const unitsPerEm = numberOption(COMMAND, 'upm', values.upm, UPM_RANGE.min, UPM_RANGE.max) ?? REFERENCE_UPM;
+    const unitsPerEm = numberOption(COMMAND, 'upm', values.upm, UPM_RANGE.min, UPM_RANGE.max) ?? DEFAULT_UNITS_PER_EM;
     if (!Number.isInteger(unitsPerEm)) throw new CliUsageError(`stemline ${COMMAND}: --upm takes a whole number.`);
-    const capHeight = numberOption(COMMAND, 'cap-height', values['cap-height'], 1, unitsPerEm) ?? Math.round((DEFAULT_CAP_HEIGHT_UNITS * unitsPerEm) / REFERENCE_UPM);
+    const capHeight = numberOption(COMMAND, 'cap-height', values['cap-height'], 1, unitsPerEm) ?? Math.round((DEFAULT_CAP_HEIGHT_UNITS * unitsPerEm) / DEFAULT_UNITS_PER_EM);
     const settings = scanSettingsFrom(COMMAND, values);
 
     const images = [];

@@ -11,7 +11,7 @@ import { CliUsageError } from '../cli-usage-error.ts';
 import { parseCommandLine } from '../parse-options.ts';
 import type { CliCommand } from '../run-cli.ts';
 import { EXIT_OK } from '../usage.ts';
-import { readInputFile } from './import.ts';
+import { readInputFile } from '../../io/read-input-file.ts';
 
 const COMMAND = 'check';
 

@@ -1,9 +1,8 @@
 // `stemline import FONT -o PROJECT`: an existing OTF, TTF or WOFF font as a new
 // Stemline project (outlines converted to cubics, metrics and names kept).
-import { readFile } from 'node:fs/promises';
 import { basename } from 'node:path';
 import { readFont } from '../../io/font/read-font.ts';
-import { InputError } from '../../io/input-error.ts';
+import { readInputFile } from '../../io/read-input-file.ts';
 import { projectFromFont } from '../../io/project/project-from-font.ts';
 import { saveProject } from '../../io/project/project-file.ts';
 import { CliUsageError } from '../cli-usage-error.ts';
@@ -12,16 +11,6 @@ import type { CliCommand } from '../run-cli.ts';
 import { EXIT_OK } from '../usage.ts';
 
 const COMMAND = 'import';
-
-/** Reads a file for a command, turning "no such file" into an InputError naming it. */
-export async function readInputFile(path: string): Promise<Uint8Array> {
-  try {
-    return await readFile(path);
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    throw new InputError('file-unreadable', path, `${basename(path)}: ${code === 'ENOENT' ? 'there is no such file' : code === 'EISDIR' ? 'it is a folder' : `it could not be read (${code ?? String(error)})`}.`);
-  }
-}
 
 export const importCommand: CliCommand = {
   name: COMMAND,

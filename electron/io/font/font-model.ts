@@ -57,8 +57,8 @@ export interface FontSource {
   readonly glyphs: readonly FontGlyph[];
 }
 
-/** Units per em when none is given: the CFF convention (a 0.001 FontMatrix, Adobe Technical Note #5176, Top DICT FontMatrix default). */
-export const DEFAULT_UNITS_PER_EM = 1000;
+/** Units per em when none is given (core/metrics: the CFF convention). */
+export { DEFAULT_UNITS_PER_EM } from '../../../core/metrics/units-per-em.ts';
 
 /** Regular weight (OpenType spec, OS/2 usWeightClass: 400 = Normal/Regular). */
 export const DEFAULT_WEIGHT_CLASS = 400;

@@ -1,12 +1,11 @@
 // Minimal ambient types for opentype.js 2.0.0, which ships none: exactly what the
 // font writer and reader use (building a CFF font from glyph paths, parsing a font,
-// reading glyph outlines, metrics, names and tables).
+// reading glyph outlines, metrics, names and tables) and what the tests use to
+// render reference glyphs. The one declaration for the whole project.
 //
 // The module is imported by the path of the package's own `main` file,
 // 'opentype.js/dist/opentype.js' (the same file, the same instance, as the bare
-// 'opentype.js'). The bare name already carries a different, narrower ambient
-// declaration for the raster tests (test/raster/opentype-js.d.ts), and TypeScript
-// cannot merge two default exports of one ambient module.
+// 'opentype.js').
 
 declare module 'opentype.js/dist/opentype.js' {
   /** One outline command; font units, y up, as found in `glyph.path.commands`. */
@@ -97,6 +96,8 @@ declare module 'opentype.js/dist/opentype.js' {
     readonly glyphs: GlyphSet;
     readonly tables: { readonly os2?: ParsedOs2Table; readonly hhea?: ParsedHheaTable };
     getEnglishName(name: EnglishNameKey): string | undefined;
+    /** The glyph a character maps to (.notdef when none); the tests render reference glyphs with it. */
+    charToGlyph(character: string): Glyph;
     toArrayBuffer(): ArrayBuffer;
   }
 

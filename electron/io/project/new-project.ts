@@ -1,9 +1,8 @@
 // A new, empty project with the defaults a lettering job starts from.
 import { CURRENT_FORMAT_VERSION, PROJECT_FORMAT_NAME, type ProjectData } from './project-schema.ts';
+import { DEFAULT_UNITS_PER_EM } from '../../../core/metrics/units-per-em.ts';
 import { DEFAULT_AXIS_SNAP_DEGREES, DEFAULT_CORNER_ANGLE_DEGREES, DEFAULT_TOLERANCE } from '../../../core/fit/fit-options.ts';
 
-/** Units per em: 1000, the CFF/PostScript convention. */
-export const DEFAULT_UNITS_PER_EM = 1000;
 /**
  * Default vertical metrics for 1000 units per em (common practice for Latin text
  * faces, from memory): cap height 700, x-height 500, ascender 750, descender −250.

@@ -1,7 +1,7 @@
 // The state of opening one scan in the page: decoding, tracing in the worker with
 // progress, the traced sheet, and any problem to show. Components render it and
 // call its methods; nothing else changes it.
-import { decodeScanInPage, PageDecodeError } from './decode-in-page.ts';
+import { decodeScanInPage } from './decode-in-page.ts';
 import { TraceClient } from './trace-client.ts';
 import type { TracedSheet } from './trace-protocol.ts';
 
@@ -48,7 +48,7 @@ export class ScanSession {
       this.sheet = sheet;
       this.phase = 'traced';
     } catch (error) {
-      this.problem = error instanceof PageDecodeError || error instanceof Error ? error.message : String(error);
+      this.problem = error instanceof Error ? error.message : String(error);
       this.phase = previousPhase;
     }
   }
