@@ -293,7 +293,9 @@ export function detectCorners(chain: BoundaryChain, settings: CornerSettings): D
     if (!isForced && Math.abs(turn) < cornerAngle) continue;
     const reach = cornerReachFor(turn, pixel);
     const meet = left && right ? intersectLines(left.point, left.tangent, right.point, right.tangent) : undefined;
-    const estimate = meet && Math.hypot(meet.x - apex.x, meet.y - apex.y) <= reach ? meet : apex;
+    const meetDistance = meet ? Math.hypot(meet.x - apex.x, meet.y - apex.y) : 0;
+    if (!isForced && meet && meetDistance > 1e9 * reach) continue;
+    const estimate = meet && meetDistance <= reach ? meet : apex;
     corners.push({ index, turn, incoming, outgoing, roundingZone: roundingZoneFor(turn, pixel), reach, estimate, forced: isForced });
     verified.push(index);
   }

@@ -15,6 +15,11 @@
  *    coordinates rounded to the grid with smooth joins kept smooth;
  * 7. the quality report (quality-report.ts).
  *
+ * Options change two stages: `mode: 'smooth'` fits each run between corners with a
+ * least-squares C² B-spline reduced to few points (smooth-fit.ts) in place of stages
+ * 2–5, and `fairing` makes smooth joins curvature-continuous where the tolerance allows
+ * (fairing.ts) before rounding.
+ *
  * Fitting aims at the tolerance less a reserve for grid rounding; if rounding still
  * pushes a segment past the tolerance, the contour is fitted again with a larger
  * reserve (at most twice).
@@ -36,6 +41,8 @@ import { fitStretch } from './minimum-segments.ts';
 import { sharpenCorners } from './corner-sharpening.ts';
 import { fixCrossingHandles, mergeSegments, smoothShallowCorners } from './finishing.ts';
 import { roundToGrid } from './grid-rounding.ts';
+import { fitSmoothContour } from './smooth-fit.ts';
+import { fairSmoothJoins } from './fairing.ts';
 import { contourReport, type ContourFitReport } from './quality-report.ts';
 import { measureSpanError } from './span-error.ts';
 
@@ -96,13 +103,8 @@ export function fitContour(points: readonly Point[], options: FitOptions = {}): 
   let result: ContourFit | undefined;
   for (let attempt = 0; attempt <= ROUNDING_RETRIES; attempt++) {
     const settings: StageSettings = { options: resolved, pixel, fitTolerance: Math.max(resolved.tolerance / 2, resolved.tolerance - reserve), noise };
-    const lines = withoutLinesInSingleCurves(chain, runs, corners, detectLines(chain, runs, { tolerance: settings.fitTolerance, pixel, axisSnap: (resolved.axisSnapDegrees * Math.PI) / 180 }), settings);
-    let fitted = assemble(chain, corners, lines, settings);
-    fitted = sharpenCorners(chain, fitted, settings.fitTolerance);
-    fitted = enforceExtrema(chain, fitted, settings.fitTolerance);
-    fitted = smoothShallowCorners(chain, fitted, settings.fitTolerance);
-    fitted = mergeSegments(chain, fitted, settings.fitTolerance);
-    fitted = fixCrossingHandles(chain, fitted, settings.fitTolerance);
+    let fitted = resolved.mode === 'smooth' ? fitSmoothContour(chain, { tolerance: settings.fitTolerance, pixel }, corners) : economyFit(chain, corners, runs, settings);
+    if (resolved.fairing) fitted = fairSmoothJoins(chain, fitted, settings.fitTolerance);
     const rounded = roundToGrid(chain, fitted, resolved.grid, resolved.tolerance);
     const segments: OutlineSegment[] = rounded.spans.map((span) => span.segment);
     const contour = contourFromSegments(segments, rounded.nodes.map((node) => node.smooth));
@@ -112,6 +114,23 @@ export function fitContour(points: readonly Point[], options: FitOptions = {}): 
     reserve += ROUNDING_RETRY_STEP_GRID * resolved.grid;
   }
   return result as ContourFit;
+}
+
+/**
+ * Stages 2–6 of the header for the default 'economy' mode: the fewest on-curve points.
+ * (Smooth mode fits C² splines between the corners instead, smooth-fit.ts.)
+ */
+function economyFit(chain: BoundaryChain, corners: readonly DetectedCorner[], runs: readonly ChainRun[], settings: StageSettings): FittedContour {
+  const { options, pixel, fitTolerance } = settings;
+  const lines = withoutLinesInSingleCurves(chain, runs, corners, detectLines(chain, runs, { tolerance: fitTolerance, pixel, axisSnap: (options.axisSnapDegrees * Math.PI) / 180 }), settings);
+  let fitted = assemble(chain, corners, lines, settings);
+  const economical = economicalLines(chain, runs, corners, lines, fitted, settings);
+  if (economical) fitted = assemble(chain, corners, economical, settings);
+  fitted = sharpenCorners(chain, fitted, fitTolerance);
+  fitted = enforceExtrema(chain, fitted, fitTolerance);
+  fitted = smoothShallowCorners(chain, fitted, fitTolerance);
+  fitted = mergeSegments(chain, fitted, fitTolerance);
+  return fixCrossingHandles(chain, fitted, fitTolerance);
 }
 
 /**
@@ -143,6 +162,108 @@ function withoutLinesInSingleCurves(chain: BoundaryChain, runs: readonly ChainRu
     for (const l of inside) dropped.add(l);
   });
   return lines.filter((l) => !dropped.has(l));
+}
+
+/**
+ * A line at least this long, and the only line along its stroke in its run, is a stem
+ * or a bar and is kept even where curves would cover its run with fewer points:
+ * 120 px, three times the shortest line (lines.ts). The flat pieces that the line
+ * search may lay along a cupped serif foot are shorter (Linux Libertine's: 35–90 px at
+ * 0.5–1 px per unit), and those along a bowed diagonal come two or more to a stroke.
+ */
+const STEM_PROTECTION_PX = 120;
+
+/**
+ * Curves that replace lines must stay within this share of the fitting tolerance, or
+ * within the error the lines had there: 0.6. Trading a line for curves saves points
+ * but must not cost visible fidelity; measured on the round trip, allowing the whole
+ * tolerance let short stems at 0.5 px per unit bow into curves (Cantarell's P and B,
+ * Hausdorff 2.0–2.3 units instead of 1.4), and 0.6 kept them while still
+ * replacing the polygon pieces along serif feet and bowed diagonals.
+ */
+const CURVES_ERROR_SHARE = 0.6;
+
+/**
+ * The lines to keep when, for some run between two corners, curves alone cover it
+ * with fewer on-curve points than the assembled contour with its lines used there;
+ * undefined when every run is best as assembled.
+ *
+ * The rule is the trade's "as few points as the tolerance allows": a shallow curve
+ * (a cupped serif foot, a gently bowed diagonal) is straight to within the noise over
+ * stretches of 40–100 px, so the line search may lay two or three lines along it
+ * joined by short curves, each adding on-curve points and near-miss kinks at the
+ * joins, where the designer drew one or two curves. Both readings are within the
+ * tolerance; the one with fewer points wins, lines on a tie. A stem or a bar (see
+ * STEM_PROTECTION_PX) is never traded for curves, so straight stems stay straight.
+ */
+function economicalLines(chain: BoundaryChain, runs: readonly ChainRun[], corners: readonly DetectedCorner[], lines: readonly DetectedLine[], assembled: FittedContour, settings: StageSettings): DetectedLine[] | undefined {
+  if (corners.length === 0 || lines.length === 0) return undefined;
+  const protectedLength = STEM_PROTECTION_PX * settings.pixel;
+  const cornerAngle = (settings.options.cornerAngleDegrees * Math.PI) / 180;
+  const dropped = new Set<DetectedLine>();
+  runs.forEach((run, k) => {
+    if (!run.betweenCorners) return;
+    const start = corners[k]!;
+    const end = corners[(k + 1) % corners.length]!;
+    const runArc = arcForward(chain, start.index, end.index) || chain.perimeter;
+    const inside = lines.filter((l) => {
+      const offset = arcForward(chain, start.index, l.first);
+      return offset > 0 && offset < runArc;
+    });
+    if (inside.length === 0) return;
+    const alongOneStroke = (a: DetectedLine, b: DetectedLine): boolean => Math.abs(Math.atan2(a.direction.x * b.direction.y - a.direction.y * b.direction.x, a.direction.x * b.direction.x + a.direction.y * b.direction.y)) < cornerAngle;
+    const isStem = (l: DetectedLine): boolean => arcAt(chain, l.last) - arcAt(chain, l.first) >= protectedLength && !inside.some((other) => other !== l && alongOneStroke(l, other));
+    if (inside.some(isStem)) return;
+    const withLines = assembled.nodes.filter((node) => {
+      const offset = arcForward(chain, start.index, node.index);
+      return offset > 0 && offset < runArc;
+    }).length;
+    let linesError = 0;
+    assembled.spans.forEach((span, i) => {
+      const offset = arcForward(chain, start.index, assembled.nodes[i]!.index);
+      if (offset >= 0 && offset < runArc) linesError = Math.max(linesError, span.maxError);
+    });
+    const errorLimit = Math.max(linesError, CURVES_ERROR_SHARE * settings.fitTolerance);
+    const curves = curveOnlyCost(chain, start, end, { ...settings, fitTolerance: Math.min(settings.fitTolerance, errorLimit) }, withLines);
+    if (curves !== undefined && curves < withLines) for (const l of inside) dropped.add(l);
+  });
+  return dropped.size > 0 ? lines.filter((l) => !dropped.has(l)) : undefined;
+}
+
+/**
+ * Interior on-curve points needed to cover the run from corner `start` to corner
+ * `end` with curves only (its extrema, plus the breakpoints of the fewest cubics
+ * between them), or undefined when that is not within the tolerance or would need
+ * at least `bound` points.
+ */
+function curveOnlyCost(chain: BoundaryChain, start: DetectedCorner, end: DetectedCorner, settings: StageSettings, bound: number): number | undefined {
+  const { pixel, fitTolerance, noise } = settings;
+  const endIndex = end.index <= start.index ? end.index + chain.count : end.index;
+  const from = arcAt(chain, start.index) + start.roundingZone;
+  const to = arcAt(chain, endIndex) - end.roundingZone;
+  if (to <= from) return undefined;
+  const [dataFirst, dataLast] = rangeByArc(chain, from, to);
+  const spacing = Math.max(MIN_POINT_SPACING_UNITS, pixel);
+  const ends: { index: number; point: Point; tangent: Vec | null }[] = [{ index: start.index, point: start.estimate, tangent: null }];
+  for (const e of chainExtrema(chain, dataFirst, dataLast, pixel, noise)) {
+    const previous = ends[ends.length - 1]!;
+    if (Math.hypot(e.point.x - previous.point.x, e.point.y - previous.point.y) < spacing) continue;
+    if (Math.hypot(e.point.x - end.estimate.x, e.point.y - end.estimate.y) < spacing) continue;
+    ends.push({ index: e.index, point: e.point, tangent: e.tangent });
+  }
+  ends.push({ index: endIndex, point: end.estimate, tangent: null });
+  let cost = ends.length - 2;
+  for (let i = 0; i + 1 < ends.length && cost < bound; i++) {
+    const a = ends[i]!;
+    const b = ends[i + 1]!;
+    const first = i === 0 ? dataFirst : Math.max(dataFirst, a.index);
+    const last = i + 2 === ends.length ? dataLast : Math.min(dataLast, b.index);
+    if (last <= first) return undefined;
+    const fit = fitStretch(chain, a, b, first, last, { tolerance: fitTolerance, pixel });
+    if (fit.errors.some((e) => e > fitTolerance)) return undefined;
+    cost += fit.segments.length - 1;
+  }
+  return cost < bound ? cost : undefined;
 }
 
 /** Two lines closer than this (px of chain, or this share of the shorter line) with no corner between them are suspect. */

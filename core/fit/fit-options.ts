@@ -38,7 +38,22 @@ export interface FitOptions {
    * chain points (boundary tracers step about one pixel at a time).
    */
   readonly pixelSize?: number;
+  /**
+   * 'economy' fits the fewest on-curve points (corners, lines, extrema, least-squares
+   * cubics); 'smooth' fits one C² B-spline and reduces it (smooth-fit.ts), for brush
+   * and pen lettering where curvature continuity matters more than point economy.
+   * Default {@link DEFAULT_FIT_MODE}.
+   */
+  readonly mode?: FitMode;
+  /**
+   * Make smooth joins curvature-continuous (G2) where the tolerance allows, by
+   * adjusting handle lengths along their tangents (fairing.ts). Default {@link DEFAULT_FAIRING}.
+   */
+  readonly fairing?: boolean;
 }
+
+/** How the fitter trades point economy against curvature continuity (see `FitOptions.mode`). */
+export type FitMode = 'economy' | 'smooth';
 
 /** Every option resolved to a value. */
 export interface ResolvedFitOptions {
@@ -50,6 +65,8 @@ export interface ResolvedFitOptions {
   readonly grid: number;
   /** Undefined here means: estimate from the chain. */
   readonly pixelSize: number | undefined;
+  readonly mode: FitMode;
+  readonly fairing: boolean;
 }
 
 /**
@@ -84,8 +101,24 @@ export const DEFAULT_AXIS_SNAP_DEGREES = 2;
 export const DEFAULT_GRID = 1;
 
 /**
+ * Default mode: 'economy'. Most lettering is drawn for text typefaces, where few,
+ * well-placed on-curve points are what a designer edits and what hints well; smooth
+ * mode is the option for brush and pen work.
+ */
+export const DEFAULT_FIT_MODE: FitMode = 'economy';
+
+/**
+ * Fairing is off by default: it changes handle lengths the least-squares fit chose,
+ * spends part of the tolerance, costs several extra solves per contour, and grid
+ * rounding afterwards reopens small curvature steps (fairing.ts); it is for users who
+ * judge outlines by a curvature comb and ask for it.
+ */
+export const DEFAULT_FAIRING = false;
+
+/**
  * The options with defaults filled in. Throws a RangeError naming the option for
- * values that cannot work (non-positive tolerance or grid, angles outside (0°, 180°)).
+ * values that cannot work (non-positive tolerance or grid, angles outside (0°, 180°),
+ * an unknown mode).
  */
 export function resolveFitOptions(options: FitOptions = {}): ResolvedFitOptions {
   const tolerance = options.tolerance ?? DEFAULT_TOLERANCE;
@@ -97,6 +130,8 @@ export function resolveFitOptions(options: FitOptions = {}): ResolvedFitOptions 
   if (!(axisSnapDegrees >= 0 && axisSnapDegrees < 45)) throw new RangeError(`axisSnapDegrees must be between 0 and 45, got ${String(axisSnapDegrees)}`);
   if (!(grid > 0) || !Number.isFinite(grid)) throw new RangeError(`grid must be a positive number of font units, got ${String(grid)}`);
   if (options.pixelSize !== undefined && !(options.pixelSize > 0)) throw new RangeError(`pixelSize must be positive, got ${String(options.pixelSize)}`);
+  const mode = options.mode ?? DEFAULT_FIT_MODE;
+  if (mode !== 'economy' && mode !== 'smooth') throw new RangeError(`mode must be 'economy' or 'smooth', got ${String(mode)}`);
   return {
     tolerance,
     cornerAngleDegrees,
@@ -105,5 +140,7 @@ export function resolveFitOptions(options: FitOptions = {}): ResolvedFitOptions 
     forcedSmooth: options.forcedSmooth ?? [],
     grid,
     pixelSize: options.pixelSize,
+    mode,
+    fairing: options.fairing ?? DEFAULT_FAIRING,
   };
 }

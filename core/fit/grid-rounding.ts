@@ -1,47 +1,135 @@
 /**
  * Rounding the fitted contour to the coordinate grid (integer font units by default)
- * without breaking smooth joins.
+ * without breaking smooth joins, leaving the tolerance or reopening curvature steps.
  *
  * Rounding each coordinate on its own turns a smooth join into a small kink: two
  * handles 40 units long, each moved by up to half a unit, meet at up to about 1°,
  * which shows in a curvature comb and in outline checks. Rounding is therefore done
  * per on-curve point together with its two handles:
  *
- * - axis-aligned smooth joins (every extremum, every join with a horizontal or
- *   vertical line): the on-curve point is rounded and the handles keep its x (vertical
- *   tangent) or y (horizontal tangent) exactly, so the join stays exactly smooth;
- * - other smooth joins between two cubics: integer points are searched near the
- *   ideal on-curve point (3 × 3 grid cells) and near each handle (5 × 5) for a triple
- *   that is exactly collinear (integer cross product 0, handles on opposite sides);
- *   the candidate nearest the ideal positions wins. Such a triple nearly always exists
- *   within these windows; when it does not, the triple with the smallest turn is used
- *   and the report lists the join if the turn exceeds the kink threshold;
+ * - smooth joins with a cubic on at least one side are searched (below): axis-aligned
+ *   ones (every extremum, every join with a horizontal or vertical line) keep the
+ *   rounded on-curve point and handles on its axis, so they stay exactly smooth, and
+ *   only the handle lengths are chosen; sloped joins between two cubics choose the
+ *   on-curve point and both handles;
  * - smooth joins between a sloped line and a cubic: the handle is the grid point near
  *   its ideal position that best continues the (rounded) line; exact only where the
  *   grid allows;
  * - corners: every coordinate rounded on its own.
  *
+ * The search at a smooth join. A handle may slide along its tangent (up to
+ * {@link HANDLE_SLIDE_CELLS} cells, and may turn by up to a cell at its tip): that is
+ * the freedom that makes collinear grid triples easy to find, since lattice points lie
+ * close to a line of arbitrary slope only here and there along it. The on-curve point
+ * stays at its rounded position (at most half a cell from the ideal in each axis)
+ * unless no acceptable triple exists there; then the 3 × 3 cells round it are tried.
+ * Candidates are ranked by, in this order of priority:
+ * (a) both adjacent spans within the tolerance of the chain (measured again with
+ *     span-error.ts) and no new crossing handles: a hard requirement while any
+ *     candidate meets it;
+ * (b) collinearity: the turn between the two handle directions at most
+ *     {@link COLLINEAR_DEGREES} (exactly 0 on axis-aligned joins), else as small as
+ *     the grid allows;
+ * (c) the smallest change of the curvature step |κ_in − κ_out| at this join and its two
+ *     neighbours (whose end curvatures this join's handles also set), relative to the
+ *     step before rounding, in the curvature scale of fairing.ts's joinCurvatures;
+ * (d) the smallest displacement from the ideal positions.
+ * (c) and (d) are weighed together ({@link G2_CURVATURE_WEIGHT}). Joins are searched in
+ * contour order, each against its neighbours' rounded positions where those are
+ * already chosen and their ideal ones otherwise, so every span is checked against its
+ * final ends when its second end is chosen; a span still over the tolerance afterwards
+ * has both its ends searched again once.
+ *
+ * Limits: the search is greedy (one join at a time), so a combination of neighbouring
+ * choices that only works jointly is not found; where no candidate keeps a span
+ * within the tolerance, the one with the smallest error is used and fit-contour.ts
+ * fits again with a larger reserve. Sloped joins whose handles are only a few cells
+ * long may have no triple within {@link COLLINEAR_DEGREES}; the smallest turn found is
+ * used and the report lists the join if it exceeds the kink threshold.
+ *
  * Lines stay exactly horizontal or vertical: their end points had equal coordinates
  * before rounding and round alike. The error against the chain is measured again.
+ * Inputs are not modified.
  */
 import type { Point, Vec } from '../geometry/vector.ts';
-import { cubic, line } from '../geometry/segment.ts';
+import { cubic, line, type CubicSegment } from '../geometry/segment.ts';
+import { curvature } from '../geometry/curvature.ts';
 import type { BoundaryChain } from './boundary-chain.ts';
+import { G2_RELATIVE_TOLERANCE } from './fairing.ts';
+import { EXTREMUM_PROTRUSION_LIMIT, segmentExtrema } from './extrema.ts';
+import { handlesCross } from './finishing.ts';
 import type { FitNode, FitSpan, FittedContour } from './fitted-contour.ts';
 import { measureSpanError } from './span-error.ts';
 
-/** Search radius (grid cells) around the ideal on-curve point. */
+/** Search radius (grid cells) around the ideal on-curve point when its rounded position has no acceptable triple. */
 const POINT_SEARCH_RADIUS = 1;
-/** Search radius (grid cells) around each ideal handle. */
-const HANDLE_SEARCH_RADIUS = 2;
+
+/**
+ * How far (grid cells) a handle may slide along its tangent either way (never below
+ * one cell long): 3. Sliding a handle by d moves the curve by at most 4/9·d (the
+ * largest Bernstein weight of an inner control point, 3t(1 − t)² at t = 1/3), so 3
+ * cells is at most 1.3 units and the tolerance check decides. Measured over the
+ * fit-test shapes and the round-trip subset: with 2 cells some sloped joins found no
+ * triple within {@link COLLINEAR_DEGREES} (worst 0.14°), with 3 all did; 4 changed
+ * nothing.
+ */
+const HANDLE_SLIDE_CELLS = 3;
+/** A searched handle's tip may leave its ideal tangent line by up to this many cells (the tangent may turn that much). */
+const HANDLE_ACROSS_CELLS = 1;
+/** Handle lengths tried on each side of the rounded length at an axis-aligned join (cells). */
+const AXIS_LENGTH_STEPS = 2;
+
+/**
+ * A sloped smooth join counts as collinear when its two handle directions differ by at
+ * most 0.05°: a sixth of the 0.3° near-miss kink threshold (quality-report.ts), so no
+ * accepted join comes near a kink warning, and small beside what the grid itself
+ * does to a direction (an integer handle 40 units long points only to within about
+ * 0.7° of where the fit wanted). Our own choice.
+ */
+export const COLLINEAR_DEGREES = 0.05;
+
+/**
+ * Weight of the relative curvature-step change (criterion c) against the displacement
+ * cost (criterion d, squared cells) at a join that was G2 before rounding (step within
+ * fairing.ts's G2_RELATIVE_TOLERANCE): 3, so a step of 10 % reopened there weighs as
+ * much as moving the on-curve point by about half a cell; elsewhere 1 (a step that was
+ * already there matters less than where the outline sits). Measured over the fit-test
+ * shapes, the round-trip subset and its faired contours (median step at G2 joins
+ * after rounding; 2.2 % with the old rounding): weight 1 → 2.0 %, 3 → 1.6 %,
+ * 10 → 1.0 %; but 10 cost fidelity on the round trip at 0.5 px per unit, where the
+ * 3-unit tolerance leaves room to trade (Cantarell Hausdorff p95 1.54 → 1.88 units;
+ * 1.58 with 3). Our own choice.
+ */
+const G2_CURVATURE_WEIGHT = 3;
+const CURVATURE_WEIGHT = 1;
+/** Displacement weight of a handle against the on-curve point, (4/9)²: how much of a handle's move reaches the curve. */
+const HANDLE_SHIFT_WEIGHT = 0.2;
+/** Tie-break within the collinear bucket: an exactly collinear triple is preferred at equal cost by up to this much. */
+const TURN_TIE_BREAK = 0.01;
+/** Candidates whose spans are measured against the chain per stage of the search (the best-ranked first). */
+const CHECKED_CANDIDATES = 12;
+/** Parameters sampled per span for its largest |κ| (the curvature scale), as in fairing.ts. */
+const SPAN_CURVATURE_SAMPLES = 33;
+/** Floor of the curvature scale as a share of the largest |κ| on the adjacent spans (fairing.ts's LOW_CURVATURE_SHARE). */
+const LOW_CURVATURE_SHARE = 0.1;
 
 /** The handle positions chosen for one on-curve point. */
 interface RoundedJoin {
-  point: Point;
+  readonly point: Point;
   /** The handle of the arriving cubic (its p2), if that span is a cubic. */
-  handleIn: Point | undefined;
+  readonly handleIn: Point | undefined;
   /** The handle of the leaving cubic (its p1), if that span is a cubic. */
-  handleOut: Point | undefined;
+  readonly handleOut: Point | undefined;
+}
+
+/** A candidate triple with its ranking. */
+interface Candidate extends RoundedJoin {
+  /** 0: collinear within COLLINEAR_DEGREES (or axis-aligned); 1: not. */
+  readonly bucket: 0 | 1;
+  /** Turn between the handle directions, degrees. */
+  readonly turn: number;
+  /** Criteria (c) and (d) combined. */
+  readonly cost: number;
 }
 
 /**
@@ -53,27 +141,637 @@ export function roundToGrid(chain: BoundaryChain, contour: FittedContour, grid: 
   const snap = (v: number): number => Math.round(v / grid) * grid;
   const { nodes, spans } = contour;
   const n = nodes.length;
-  const joins: RoundedJoin[] = nodes.map((node, i) => {
+  const ideal: RoundedJoin[] = nodes.map((node, i) => {
     const before = spans[(i - 1 + n) % n]!.segment;
     const after = spans[i]!.segment;
-    const handleIn = before.kind === 'cubic' ? before.p2 : undefined;
-    const handleOut = after.kind === 'cubic' ? after.p1 : undefined;
+    return { point: node.point, handleIn: before.kind === 'cubic' ? before.p2 : undefined, handleOut: after.kind === 'cubic' ? after.p1 : undefined };
+  });
+  const searched = nodes.map((node, i) => searchable(node, ideal[i]!));
+  // Joins that are not searched are rounded on their own; searched ones start ideal.
+  const joins: RoundedJoin[] = nodes.map((node, i) => {
+    if (searched[i]) return ideal[i]!;
+    const before = spans[(i - 1 + n) % n]!.segment;
+    const after = spans[i]!.segment;
     // A line end may move by a cell only when the line's other end is a corner (it does
     // not move with this one); two smooth ends moving independently would turn the line.
     const otherEnd = before.kind === 'line' ? nodes[(i - 1 + n) % n]! : after.kind === 'line' ? nodes[(i + 1) % n]! : undefined;
     const mayMove = otherEnd === undefined || !otherEnd.smooth;
+    const { handleIn, handleOut } = ideal[i]!;
     return roundJoin(node, handleIn, handleOut, before.kind === 'line' ? before.p0 : undefined, after.kind === 'line' ? after.p1 : undefined, grid, snap, mayMove);
   });
-  const roundedSpans: FitSpan[] = spans.map((span, i) => {
+  const search = new JoinSearch(chain, contour, ideal, joins, grid, tolerance);
+  alignSlopedLines(contour, ideal, joins, grid, tolerance, snap, (s, segment) => search.measure(s, segment));
+  for (let i = 0; i < n; i++) {
+    if (!searched[i]) continue;
+    joins[i] = search.choose(i);
+    search.pending[i] = false;
+  }
+  const segmentOf = (i: number): FitSpan['segment'] => {
     const start = joins[i]!;
     const end = joins[(i + 1) % n]!;
-    const segment = span.segment.kind === 'line' ? line(start.point, end.point) : cubic(start.point, start.handleOut!, end.handleIn!, end.point);
-    return { ...span, segment, maxError: measureSpanError(chain, segment, span.first, span.last, tolerance) };
-  });
+    return spans[i]!.segment.kind === 'line' ? line(start.point, end.point) : cubic(start.point, start.handleOut!, end.handleIn!, end.point);
+  };
+  const errorOf = (i: number): number => search.measure(i, segmentOf(i));
+  const errors = spans.map((_, i) => errorOf(i));
+  // A span still over the tolerance: search both its ends again, now that all neighbours are final.
+  const failing = errors.flatMap((e, i) => (e > tolerance ? [i] : []));
+  for (const i of failing) {
+    if (errors[i]! <= tolerance) continue;
+    const ends = [i, (i + 1) % n].filter((j) => searched[j]);
+    if (ends.length === 0) continue;
+    for (const j of ends) joins[j] = search.choose(j);
+    for (const j of ends) for (const s of [(j - 1 + n) % n, j]) errors[s] = errorOf(s);
+  }
+  unbulgeCornerHandles(contour, ideal, joins, errors, grid, tolerance, (s, segment) => search.measure(s, segment));
+  const roundedSpans: FitSpan[] = spans.map((span, i) => ({ ...span, segment: segmentOf(i), maxError: errors[i]! }));
   const roundedNodes: FitNode[] = nodes.map((node, i) => ({ ...node, point: joins[i]!.point }));
   return { nodes: roundedNodes, spans: roundedSpans };
 }
 
+/** A smooth join with a tangent and a cubic on at least one side, axis-aligned or between two cubics. */
+function searchable(node: FitNode, join: RoundedJoin): boolean {
+  const t = node.smooth ? node.tangentOut : null;
+  if (!t || (join.handleIn === undefined && join.handleOut === undefined)) return false;
+  if (t.x === 0 || t.y === 0) return true;
+  return join.handleIn !== undefined && join.handleOut !== undefined;
+}
+
+/** End curvature of a cubic at its start, from its first three control points (Farin: κ(0) = (2/3)·(P1 − P0) × (P2 − P1) / |P1 − P0|³). */
+function startCurvature(p0: Point, p1: Point, p2: Point): number {
+  const ax = p1.x - p0.x;
+  const ay = p1.y - p0.y;
+  const l = Math.hypot(ax, ay);
+  return (2 / 3) * (ax * (p2.y - p1.y) - ay * (p2.x - p1.x)) / (l * l * l);
+}
+
+/** End curvature of a cubic at its end: κ(1) = (2/3)·(P2 − P1) × (P3 − P2) / |P3 − P2|³. */
+function endCurvature(p1: Point, p2: Point, p3: Point): number {
+  const bx = p3.x - p2.x;
+  const by = p3.y - p2.y;
+  const l = Math.hypot(bx, by);
+  return (2 / 3) * ((p2.x - p1.x) * by - (p2.y - p1.y) * bx) / (l * l * l);
+}
+
+/**
+ * The search of the header for one smooth join at a time, against the current choice
+ * at every other join (`joins`, updated by the caller).
+ */
+class JoinSearch {
+  private readonly n: number;
+  /** Per node: whether its curvature step counts (smooth, a cubic on a side). */
+  private readonly counts: boolean[];
+  /** Per node: |κ_in − κ_out| before rounding, and the scale it is measured in. */
+  private readonly stepBefore: number[];
+  private readonly scale: number[];
+  /** Per span: whether its handles crossed before rounding (a crossing is then not held against a candidate). */
+  private readonly crossedBefore: boolean[];
+  /**
+   * Per node: searched but not chosen yet. A span with such an end is not measured while
+   * choosing its other end (it is measured when that end is chosen), which halves the
+   * measuring; the repair pass in roundToGrid catches what this misses.
+   */
+  readonly pending: boolean[];
+  /** Per span: errors already measured, by segment. */
+  private readonly measured: Map<string, number>[];
+
+  constructor(
+    private readonly chain: BoundaryChain,
+    private readonly contour: FittedContour,
+    private readonly ideal: readonly RoundedJoin[],
+    private readonly joins: readonly RoundedJoin[],
+    private readonly grid: number,
+    private readonly tolerance: number,
+  ) {
+    const { nodes, spans } = contour;
+    const n = nodes.length;
+    this.n = n;
+    const peaks = spans.map((span) => {
+      if (span.segment.kind !== 'cubic') return 0;
+      let peak = 0;
+      for (let k = 0; k < SPAN_CURVATURE_SAMPLES; k++) {
+        const value = Math.abs(curvature(span.segment, k / (SPAN_CURVATURE_SAMPLES - 1)));
+        if (value > peak) peak = value;
+      }
+      return peak;
+    });
+    this.crossedBefore = spans.map((span) => span.segment.kind === 'cubic' && handlesCross(span.segment));
+    this.pending = nodes.map((node, i) => searchable(node, ideal[i]!));
+    this.measured = spans.map(() => new Map());
+    this.counts = [];
+    this.stepBefore = [];
+    this.scale = [];
+    nodes.forEach((node, i) => {
+      const before = spans[(i - 1 + n) % n]!.segment;
+      const after = spans[i]!.segment;
+      const kIn = before.kind === 'cubic' ? endCurvature(before.p1, before.p2, before.p3) : 0;
+      const kOut = after.kind === 'cubic' ? startCurvature(after.p0, after.p1, after.p2) : 0;
+      const peak = Math.max(peaks[(i - 1 + n) % n]!, peaks[i]!);
+      const scale = before.kind === 'cubic' && after.kind === 'cubic' ? Math.max(Math.abs(kIn), Math.abs(kOut), LOW_CURVATURE_SHARE * peak) : peak;
+      this.counts.push(node.smooth && (before.kind === 'cubic' || after.kind === 'cubic') && scale > 0 && Number.isFinite(scale));
+      this.stepBefore.push(Math.abs(kIn - kOut));
+      this.scale.push(scale);
+    });
+  }
+
+  /** The chosen triple at smooth join i. */
+  choose(i: number): RoundedJoin {
+    const node = this.contour.nodes[i]!;
+    const t = node.tangentOut as Vec;
+    const { grid } = this;
+    const p = node.point;
+    const rounded = { x: Math.round(p.x / grid) * grid, y: Math.round(p.y / grid) * grid };
+    const axis = t.x === 0 || t.y === 0;
+    const stages: (() => Candidate[])[] = axis
+      ? [() => this.axisCandidates(i, rounded, t)]
+      : [
+          () => this.slopedCandidates(i, [rounded], t, 0),
+          () => this.slopedCandidates(i, this.ring(rounded), t, 0),
+          () => this.slopedCandidates(i, [rounded, ...this.ring(rounded)], t, 1),
+        ];
+    let fallback: { candidate: Candidate; error: number } | undefined;
+    for (const stage of stages) {
+      const candidates = stage().sort(compareCandidates);
+      for (const candidate of candidates.slice(0, CHECKED_CANDIDATES)) {
+        const error = this.spanErrors(i, candidate);
+        if (error <= this.tolerance) return candidate;
+        if (!fallback || (candidate.bucket < fallback.candidate.bucket) || (candidate.bucket === fallback.candidate.bucket && error < fallback.error)) fallback = { candidate, error };
+      }
+    }
+    if (fallback) return fallback.candidate;
+    // Nothing to choose from (degenerate handles): round each coordinate.
+    const j = this.ideal[i]!;
+    const roundPoint = (q: Point | undefined): Point | undefined => q && { x: Math.round(q.x / grid) * grid, y: Math.round(q.y / grid) * grid };
+    return { point: rounded, handleIn: roundPoint(j.handleIn), handleOut: roundPoint(j.handleOut) };
+  }
+
+  /** The 8 grid points round q within POINT_SEARCH_RADIUS cells. */
+  private ring(q: Point): Point[] {
+    const out: Point[] = [];
+    for (let a = -POINT_SEARCH_RADIUS; a <= POINT_SEARCH_RADIUS; a++) {
+      for (let b = -POINT_SEARCH_RADIUS; b <= POINT_SEARCH_RADIUS; b++) if (a !== 0 || b !== 0) out.push({ x: q.x + a * this.grid, y: q.y + b * this.grid });
+    }
+    return out;
+  }
+
+  /** Axis-aligned join: the rounded point, handles on its axis with a few lengths each. */
+  private axisCandidates(i: number, q: Point, t: Vec): Candidate[] {
+    const { grid } = this;
+    const j = this.ideal[i]!;
+    const p = j.point;
+    const lengths = (h: Point | undefined, sign: number): (Point | undefined)[] => {
+      if (!h) return [undefined];
+      const along = ((h.x - p.x) * t.x + (h.y - p.y) * t.y) * sign;
+      const base = Math.round(along / grid);
+      const out: Point[] = [];
+      for (let k = -AXIS_LENGTH_STEPS; k <= AXIS_LENGTH_STEPS; k++) {
+        const cells = base + k;
+        if (cells < 1) continue;
+        out.push({ x: q.x + sign * t.x * cells * grid, y: q.y + sign * t.y * cells * grid });
+      }
+      return out;
+    };
+    const candidates: Candidate[] = [];
+    for (const hIn of lengths(j.handleIn, -1)) {
+      for (const hOut of lengths(j.handleOut, 1)) candidates.push({ point: q, handleIn: hIn, handleOut: hOut, bucket: 0, turn: 0, cost: this.cost(i, q, hIn, hOut) });
+    }
+    return candidates;
+  }
+
+  /**
+   * Sloped join between two cubics, for each on-curve point q in `points`: every
+   * lattice point near the shorter handle's ideal position (sliding along the tangent
+   * and turning by up to a cell at its tip), each paired with the lattice points along
+   * the opposite ray within the longer handle's slide range. A direction the short
+   * handle can take is coarse; the long one can follow it closely, since lattice
+   * points lie within 1/(2|w|) cells of any line through q with primitive direction w.
+   * Bucket 0: the pairs within COLLINEAR_DEGREES (exactly collinear ones included);
+   * bucket 1: the nearest-direction pair for each short-handle position.
+   */
+  private slopedCandidates(i: number, points: readonly Point[], t: Vec, bucket: 0 | 1): Candidate[] {
+    const { grid } = this;
+    const j = this.ideal[i]!;
+    const p = j.point;
+    const inLength = Math.hypot(j.handleIn!.x - p.x, j.handleIn!.y - p.y);
+    const outLength = Math.hypot(j.handleOut!.x - p.x, j.handleOut!.y - p.y);
+    const shortIsIn = inLength <= outLength;
+    const shortLength = shortIsIn ? inLength : outLength;
+    const longLength = shortIsIn ? outLength : inLength;
+    const toShort = shortIsIn ? { x: -t.x, y: -t.y } : t;
+    const candidates: Candidate[] = [];
+    for (const q of points) {
+      for (const s of this.handleWindow(q, toShort, shortLength)) {
+        // The long handle lies on the ray from q away from the short one.
+        const sx = s.x - q.x;
+        const sy = s.y - q.y;
+        const sl = Math.hypot(sx, sy);
+        const away = { x: -sx / sl, y: -sy / sl };
+        let nearest: { h: Point; turn: number } | undefined;
+        for (const h of this.pointsAlongRay(q, away, longLength)) {
+          // Turn between the two handle directions, exactly 0 for an exactly collinear grid triple.
+          const lx = Math.round((h.x - q.x) / grid);
+          const ly = Math.round((h.y - q.y) / grid);
+          const cx = Math.round(sx / grid);
+          const cy = Math.round(sy / grid);
+          const turn = (Math.atan2(Math.abs(cx * ly - cy * lx), -(cx * lx + cy * ly)) * 180) / Math.PI;
+          if (bucket === 0) {
+            if (turn > COLLINEAR_DEGREES) continue;
+            candidates.push(this.sloped(i, q, shortIsIn ? s : h, shortIsIn ? h : s, 0, turn));
+          } else if (turn > COLLINEAR_DEGREES && (!nearest || turn < nearest.turn)) nearest = { h, turn };
+        }
+        if (nearest) candidates.push(this.sloped(i, q, shortIsIn ? s : nearest.h, shortIsIn ? nearest.h : s, 1, nearest.turn));
+      }
+    }
+    return candidates;
+  }
+
+  private sloped(i: number, q: Point, handleIn: Point, handleOut: Point, bucket: 0 | 1, turn: number): Candidate {
+    const cost = this.cost(i, q, handleIn, handleOut) + (bucket === 0 ? (TURN_TIE_BREAK * turn) / COLLINEAR_DEGREES : 0);
+    return { point: q, handleIn, handleOut, bucket, turn, cost };
+  }
+
+  /** The slide range of a handle of ideal length `length`: never shorter than a cell. */
+  private slideRange(length: number): [number, number] {
+    const slide = HANDLE_SLIDE_CELLS * this.grid;
+    return [Math.max(this.grid, length - slide), length + slide];
+  }
+
+  /** Lattice points h with (h − q)·direction within the slide range of `length` and at most HANDLE_ACROSS_CELLS from the ray. */
+  private handleWindow(q: Point, direction: Vec, length: number): Point[] {
+    const { grid } = this;
+    const [lo, hi] = this.slideRange(length);
+    const across = HANDLE_ACROSS_CELLS * grid;
+    const nx = -direction.y;
+    const ny = direction.x;
+    const xs = [direction.x * lo + nx * across, direction.x * lo - nx * across, direction.x * hi + nx * across, direction.x * hi - nx * across];
+    const ys = [direction.y * lo + ny * across, direction.y * lo - ny * across, direction.y * hi + ny * across, direction.y * hi - ny * across];
+    const out: Point[] = [];
+    for (let gx = Math.ceil((q.x + Math.min(...xs)) / grid); gx * grid <= q.x + Math.max(...xs); gx++) {
+      for (let gy = Math.ceil((q.y + Math.min(...ys)) / grid); gy * grid <= q.y + Math.max(...ys); gy++) {
+        const vx = gx * grid - q.x;
+        const vy = gy * grid - q.y;
+        const along = vx * direction.x + vy * direction.y;
+        if (along < lo || along > hi || Math.abs(direction.x * vy - direction.y * vx) > across) continue;
+        out.push({ x: gx * grid, y: gy * grid });
+      }
+    }
+    return out;
+  }
+
+  /** The two lattice points straddling the ray q + λ·direction at each lattice column (or row) crossed within the slide range of `length`. */
+  private pointsAlongRay(q: Point, direction: Vec, length: number): Point[] {
+    const { grid } = this;
+    const [lo, hi] = this.slideRange(length);
+    const major = Math.abs(direction.x) >= Math.abs(direction.y) ? 'x' : 'y';
+    const minor = major === 'x' ? 'y' : 'x';
+    const a = q[major] + direction[major] * lo;
+    const b = q[major] + direction[major] * hi;
+    const out: Point[] = [];
+    for (let g = Math.ceil(Math.min(a, b) / grid); g * grid <= Math.max(a, b); g++) {
+      const m = g * grid;
+      const lambda = (m - q[major]) / direction[major];
+      const c = (q[minor] + direction[minor] * lambda) / grid;
+      for (const k of Math.floor(c) === Math.ceil(c) ? [c] : [Math.floor(c), Math.ceil(c)]) {
+        out.push(major === 'x' ? { x: m, y: k * grid } : { x: k * grid, y: m });
+      }
+    }
+    return out;
+  }
+
+  /**
+   * Criteria (c) and (d): the curvature-step change at join i and its neighbours, and
+   * the displacement from the ideal positions, for the triple (q, hIn, hOut) with every
+   * other join as currently chosen.
+   */
+  private cost(i: number, q: Point, hIn: Point | undefined, hOut: Point | undefined): number {
+    const { n, joins, grid } = this;
+    const prev = (i - 1 + n) % n;
+    const next = (i + 1) % n;
+    // With a single node the neighbours are the join itself.
+    const P: RoundedJoin = prev === i ? { point: q, handleIn: hIn, handleOut: hOut } : joins[prev]!;
+    const N: RoundedJoin = next === i ? P : joins[next]!;
+    let curvatureCost = 0;
+    if (this.counts[i]) curvatureCost += this.stepChange(i, hIn ? endCurvature(P.handleOut!, hIn, q) : 0, hOut ? startCurvature(q, hOut, N.handleIn!) : 0);
+    if (hIn && prev !== i && this.counts[prev]) {
+      const PP = joins[(prev - 1 + n) % n]!;
+      const prevIn = P.handleIn ? endCurvature(PP.handleOut!, P.handleIn, P.point) : 0;
+      curvatureCost += this.stepChange(prev, prevIn, startCurvature(P.point, P.handleOut!, hIn));
+    }
+    if (hOut && next !== i && next !== prev && this.counts[next]) {
+      const NN = joins[(next + 1) % n]!;
+      const nextOut = N.handleOut ? startCurvature(N.point, N.handleOut, NN.handleIn!) : 0;
+      curvatureCost += this.stepChange(next, endCurvature(hOut, N.handleIn!, N.point), nextOut);
+    }
+    if (!Number.isFinite(curvatureCost)) curvatureCost = 1e6;
+    const j = this.ideal[i]!;
+    const displacement = squaredDistance(q, j.point) + HANDLE_SHIFT_WEIGHT * (squaredDistance(hIn, j.handleIn) + squaredDistance(hOut, j.handleOut));
+    return curvatureCost + displacement / (grid * grid);
+  }
+
+  /** Change of the curvature step at node k, relative to its scale, for the end curvatures given. */
+  private stepChange(k: number, kIn: number, kOut: number): number {
+    const before = this.stepBefore[k]!;
+    const scale = this.scale[k]!;
+    const weight = before <= G2_RELATIVE_TOLERANCE * scale ? G2_CURVATURE_WEIGHT : CURVATURE_WEIGHT;
+    return (weight * Math.abs(Math.abs(kIn - kOut) - before)) / scale;
+  }
+
+  /** measureSpanError for span s with the given segment, remembered. */
+  measure(s: number, segment: FitSpan['segment']): number {
+    const key = segment.kind === 'line' ? `${segment.p0.x},${segment.p0.y},${segment.p1.x},${segment.p1.y}` : `${segment.p0.x},${segment.p0.y},${segment.p1.x},${segment.p1.y},${segment.p2.x},${segment.p2.y},${segment.p3.x},${segment.p3.y}`;
+    const known = this.measured[s]!.get(key);
+    if (known !== undefined) return known;
+    const span = this.contour.spans[s]!;
+    const error = measureSpanError(this.chain, segment, span.first, span.last, this.tolerance);
+    this.measured[s]!.set(key, error);
+    return error;
+  }
+
+  /**
+   * The larger error of the two spans next to join i with the candidate in place, or
+   * Infinity when a candidate makes handles cross that did not before.
+   */
+  private spanErrors(i: number, candidate: RoundedJoin): number {
+    const { n, joins, tolerance } = this;
+    const prev = (i - 1 + n) % n;
+    const next = (i + 1) % n;
+    const at = (k: number): RoundedJoin => (k === i ? candidate : joins[k]!);
+    let worst = 0;
+    const check = (s: number, segment: CubicSegment, otherEnd: number): void => {
+      if (worst > tolerance) return;
+      if (!this.crossedBefore[s] && handlesCross(segment)) {
+        worst = Infinity;
+        return;
+      }
+      if (otherEnd !== i && this.pending[otherEnd]) return;
+      worst = Math.max(worst, this.measure(s, segment));
+    };
+    if (candidate.handleIn) check(prev, cubic(at(prev).point, at(prev).handleOut!, candidate.handleIn, candidate.point), prev);
+    if (candidate.handleOut) check(i, cubic(candidate.point, candidate.handleOut, at(next).handleIn!, at(next).point), next);
+    return worst;
+  }
+}
+
+function squaredDistance(a: Point | undefined, b: Point | undefined): number {
+  return a && b ? (a.x - b.x) ** 2 + (a.y - b.y) ** 2 : 0;
+}
+
+function compareCandidates(a: Candidate, b: Candidate): number {
+  if (a.bucket !== b.bucket) return a.bucket - b.bucket;
+  if (a.bucket === 1 && a.turn !== b.turn) return a.turn - b.turn;
+  return a.cost - b.cost;
+}
+
+/** Search radius (cells) round the rounded ideal position of a line end at a sloped line–cubic join, when the line's ends are chosen together (alignSlopedLines). */
+const LINE_JOIN_RADIUS = 2;
+/** Search radius (cells) of a line end at a corner there: a corner moved by a cell is still within the round trip's 4-unit corner match, and the spans it ends are measured again. */
+const LINE_CORNER_RADIUS = 1;
+/** Weight of moving a corner end of such a line against moving its join end (squared cells): the join end is preferred, since a corner is where a designer looks first. */
+const CORNER_MOVE_WEIGHT = 2;
+/** Candidates per line whose spans are measured against the chain (the best-ranked first). */
+const CHECKED_LINE_CANDIDATES = 16;
+
+/** Greatest common divisor of two non-negative integers. */
+function gcd(a: number, b: number): number {
+  while (b) [a, b] = [b, a % b];
+  return a;
+}
+
+/** A smooth join with a sloped tangent between a line and a cubic. */
+function isLineCubicJoin(node: FitNode, before: FitSpan['segment'], after: FitSpan['segment']): boolean {
+  const t = node.smooth ? node.tangentOut : null;
+  if (!t || t.x === 0 || t.y === 0) return false;
+  return (before.kind === 'line' && after.kind === 'cubic') || (before.kind === 'cubic' && after.kind === 'line');
+}
+
+/** Handles rounded on their own (a corner, or a smooth node with no tangent): nothing else depends on them. */
+function independentHandles(node: FitNode): boolean {
+  return !node.smooth || !node.tangentOut;
+}
+
+/** One candidate for a sloped line's rounded ends: the two joins it sets, and its cost. */
+interface LineCandidate {
+  readonly start: RoundedJoin;
+  readonly end: RoundedJoin;
+  readonly cost: number;
+}
+
+/**
+ * Sloped lines with a smooth line–cubic join at one end or both: the line's rounded
+ * ends and the join handles are chosen together, so that each join is exactly
+ * collinear on the grid (integer cross product 0).
+ *
+ * A grid point H continues the line A′B′ exactly only if H − B′ is a multiple of the
+ * reduced direction d = (B′ − A′)/gcd(B′ − A′): the lattice points on a line of
+ * primitive direction d lie |d| apart. Rounding the ends on their own usually gives a
+ * d longer than the handle (d is the whole line when the gcd is 1), and the nearest
+ * lattice point to the handle then turns by up to a few degrees. So the ends are
+ * searched (join ends within {@link LINE_JOIN_RADIUS} cells of their rounding, corner
+ * ends within {@link LINE_CORNER_RADIUS} where the spans they also end can be measured
+ * again, other ends fixed); every pair gives a direction d, and each join's handle is
+ * put at E′ ± k·d, k ≥ 1, the multiple nearest its ideal position. The pairs are the
+ * rational directions near the line's (the best approximations with small |d| among
+ * them, in the sense of Farey sequences, are those with a short d): a window of
+ * ±2 cells at a join end reaches directions with |d| up to about 4–5 cells at any
+ * slope. Candidates are ranked by displacement from the ideal positions (join ends
+ * weigh 1, corner ends {@link CORNER_MOVE_WEIGHT}, handles HANDLE_SHIFT_WEIGHT) and
+ * the best {@link CHECKED_LINE_CANDIDATES} are measured: the line, each join's cubic,
+ * and the other span of a moved corner must stay within the tolerance (span-error.ts)
+ * with no new crossing handles. The first that does is used; otherwise the joins keep
+ * roundJoin's nearest-collinear handle (recomputed against the line's final ends).
+ *
+ * Lines are taken in contour order and each end is settled by the first line that
+ * reaches it, so a corner shared by two lines is chosen by the first and fixed for the
+ * second. A corner whose other span is a line may move only where that line's far end
+ * is a corner or a line–cubic join still to be settled (which then follows it);
+ * otherwise moving it would turn an axis-aligned line or one already settled.
+ *
+ * `joins` is updated in place; searched joins (JoinSearch) not yet chosen sit at their
+ * ideal positions, so a cubic from a line join to one of them is measured against the
+ * ideal end and measured again when that end is chosen.
+ */
+function alignSlopedLines(contour: FittedContour, ideal: readonly RoundedJoin[], joins: RoundedJoin[], grid: number, tolerance: number, snap: (v: number) => number, measure: (s: number, segment: FitSpan['segment']) => number): void {
+  const { nodes, spans } = contour;
+  const n = nodes.length;
+  if (n < 3) return;
+  const prevOf = (i: number): number => (i - 1 + n) % n;
+  const nextOf = (i: number): number => (i + 1) % n;
+  const lineJoin = nodes.map((node, i) => isLineCubicJoin(node, spans[prevOf(i)]!.segment, spans[i]!.segment));
+  const settled = nodes.map(() => false);
+  const onGrid = (q: Point): boolean => Number.isInteger(q.x / grid) && Number.isInteger(q.y / grid);
+  for (let s = 0; s < n; s++) {
+    const fitted = spans[s]!.segment;
+    if (fitted.kind !== 'line') continue;
+    const a = s;
+    const b = nextOf(s);
+    if (!(lineJoin[a] && !settled[a]) && !(lineJoin[b] && !settled[b])) continue;
+    if (fitted.p0.x === fitted.p1.x || fitted.p0.y === fitted.p1.y) continue;
+    // The span on the other side of each end, and the node at its far end.
+    const otherSpan = (e: number): number => (e === a ? prevOf(a) : b);
+    const farEnd = (e: number): number => (e === a ? prevOf(a) : nextOf(b));
+    const radiusOf = (e: number): number => {
+      if (settled[e]) return 0;
+      if (lineJoin[e]) return LINE_JOIN_RADIUS;
+      if (!independentHandles(nodes[e]!)) return 0;
+      const o = spans[otherSpan(e)]!.segment;
+      if (o.kind === 'cubic') return LINE_CORNER_RADIUS;
+      const far = farEnd(e);
+      if (o.kind !== 'line' || o.p0.x === o.p1.x || o.p0.y === o.p1.y || far === a || far === b) return 0;
+      return independentHandles(nodes[far]!) || (lineJoin[far] && !settled[far]) ? LINE_CORNER_RADIUS : 0;
+    };
+    const ra = radiusOf(a);
+    const rb = radiusOf(b);
+    const centre = (e: number, r: number): Point => (r > 0 ? { x: snap(nodes[e]!.point.x), y: snap(nodes[e]!.point.y) } : joins[e]!.point);
+    const ca = centre(a, ra);
+    const cb = centre(b, rb);
+    if (!onGrid(ca) || !onGrid(cb)) continue;
+    const moveWeight = (e: number, r: number): number => (r === 0 ? 0 : lineJoin[e] ? 1 : CORNER_MOVE_WEIGHT);
+    const wa = moveWeight(a, ra);
+    const wb = moveWeight(b, rb);
+    const fx = fitted.p1.x - fitted.p0.x;
+    const fy = fitted.p1.y - fitted.p0.y;
+    // Handle positions on the ray E′ + k·dir nearest the ideal handle h (k ≥ 1, up to
+    // two), with a length within the slide range of the ideal one: the span error is
+    // measured from the chain to the curve only, so a handle far too long (a loop past
+    // the chain) must be ruled out here.
+    const slide = HANDLE_SLIDE_CELLS * grid;
+    const handlesOnRay = (e: Point, dir: Vec, h: Point, p: Point): Point[] => {
+      const step = Math.hypot(dir.x, dir.y);
+      const length = Math.hypot(h.x - p.x, h.y - p.y);
+      const k = ((h.x - e.x) * dir.x + (h.y - e.y) * dir.y) / (step * step);
+      const ks = [...new Set([Math.max(1, Math.floor(k)), Math.max(1, Math.ceil(k))])];
+      return ks.filter((m) => m * step >= Math.max(grid, length - slide) && m * step <= length + slide).map((m) => ({ x: e.x + m * dir.x, y: e.y + m * dir.y }));
+    };
+    const candidates: LineCandidate[] = [];
+    for (let ax = -ra; ax <= ra; ax++) {
+      for (let ay = -ra; ay <= ra; ay++) {
+        const A = { x: ca.x + ax * grid, y: ca.y + ay * grid };
+        const costA = (wa * squaredDistance(A, nodes[a]!.point)) / (grid * grid);
+        for (let bx = -rb; bx <= rb; bx++) {
+          for (let by = -rb; by <= rb; by++) {
+            const B = { x: cb.x + bx * grid, y: cb.y + by * grid };
+            const vx = Math.round((B.x - A.x) / grid);
+            const vy = Math.round((B.y - A.y) / grid);
+            if (vx * fx + vy * fy <= 0) continue;
+            const g = gcd(Math.abs(vx), Math.abs(vy));
+            const d = { x: (vx / g) * grid, y: (vy / g) * grid };
+            const base = costA + (wb * squaredDistance(B, nodes[b]!.point)) / (grid * grid);
+            const hAs = lineJoin[a] && ra > 0 ? handlesOnRay(A, { x: -d.x, y: -d.y }, ideal[a]!.handleIn!, nodes[a]!.point) : [joins[a]!.handleIn];
+            const hBs = lineJoin[b] && rb > 0 ? handlesOnRay(B, d, ideal[b]!.handleOut!, nodes[b]!.point) : [joins[b]!.handleOut];
+            for (const hA of hAs) {
+              for (const hB of hBs) {
+                const cost = base + (HANDLE_SHIFT_WEIGHT * (squaredDistance(hA, ideal[a]!.handleIn) + squaredDistance(hB, ideal[b]!.handleOut))) / (grid * grid);
+                candidates.push({ start: { point: A, handleIn: hA, handleOut: joins[a]!.handleOut }, end: { point: B, handleIn: joins[b]!.handleIn, handleOut: hB }, cost });
+              }
+            }
+          }
+        }
+      }
+    }
+    candidates.sort((x, y) => x.cost - y.cost);
+    const accepted = candidates.slice(0, CHECKED_LINE_CANDIDATES).find((c) => lineCandidateFits(c));
+    if (accepted) {
+      joins[a] = accepted.start;
+      joins[b] = accepted.end;
+    } else {
+      // Today's nearest-collinear handle, against the line's ends as they now stand.
+      for (const e of [a, b]) {
+        if (!lineJoin[e] || settled[e]) continue;
+        const other = e === a ? b : a;
+        const { handleIn, handleOut } = ideal[e]!;
+        joins[e] = roundJoin(nodes[e]!, handleIn, handleOut, e === b ? joins[a]!.point : undefined, e === a ? joins[b]!.point : undefined, grid, snap, !nodes[other]!.smooth);
+      }
+    }
+    settled[a] = true;
+    settled[b] = true;
+
+    function lineCandidateFits(c: LineCandidate): boolean {
+      const at = (k: number): RoundedJoin => (k === a ? c.start : k === b ? c.end : joins[k]!);
+      const segmentAt = (k: number): FitSpan['segment'] => {
+        const p = at(k);
+        const q = at(nextOf(k));
+        return spans[k]!.segment.kind === 'line' ? line(p.point, q.point) : cubic(p.point, p.handleOut!, q.handleIn!, q.point);
+      };
+      const touched = [s];
+      for (const e of [a, b]) {
+        const moved = at(e).point.x !== joins[e]!.point.x || at(e).point.y !== joins[e]!.point.y;
+        if (lineJoin[e] || moved) touched.push(otherSpan(e));
+      }
+      for (const k of touched) {
+        const segment = segmentAt(k);
+        if (segment.kind === 'cubic') {
+          if ((segment.p1.x === segment.p0.x && segment.p1.y === segment.p0.y) || (segment.p2.x === segment.p3.x && segment.p2.y === segment.p3.y)) return false;
+          if (handlesCross(segment) && !(spans[k]!.segment.kind === 'cubic' && handlesCross(spans[k]!.segment as CubicSegment))) return false;
+        }
+        if (measure(k, segment) > tolerance) return false;
+      }
+      return true;
+    }
+  }
+}
+
+/** Handle candidates tried round a corner's rounded handle (cells either way) when rounding made its cubic bulge past its ends. */
+const UNBULGE_CELLS = 1;
+
+/**
+ * Corner handles whose rounding made an extremum stick out: a cubic next to a corner
+ * whose unrounded extrema protrude at most EXTREMUM_PROTRUSION_LIMIT (extrema.ts) past
+ * its end points can protrude more once its corner handles are rounded on their own
+ * (a serif's end face drawn with handles a fraction of a unit inside the end points
+ * gains a 0.6-unit bulge). Such a handle, which no other span depends on, is tried
+ * within {@link UNBULGE_CELLS} of its rounding; the candidate nearest the ideal with
+ * protrusion within the limit, no new crossing and an error within the tolerance (or
+ * no worse than before) replaces it. `joins` and `errors` are updated in place.
+ */
+function unbulgeCornerHandles(contour: FittedContour, ideal: readonly RoundedJoin[], joins: RoundedJoin[], errors: number[], grid: number, tolerance: number, measure: (s: number, segment: FitSpan['segment']) => number): void {
+  const { nodes, spans } = contour;
+  const n = nodes.length;
+  const protrusion = (segment: FitSpan['segment']): number => Math.max(0, ...segmentExtrema(segment).map((e) => e.protrusion));
+  for (let i = 0; i < n; i++) {
+    const fitted = spans[i]!.segment;
+    if (fitted.kind !== 'cubic') continue;
+    const j = (i + 1) % n;
+    if (j === i) continue;
+    const freeOut = independentHandles(nodes[i]!);
+    const freeIn = independentHandles(nodes[j]!);
+    if (!freeOut && !freeIn) continue;
+    const start = joins[i]!;
+    const end = joins[j]!;
+    const current = cubic(start.point, start.handleOut!, end.handleIn!, end.point);
+    if (protrusion(current) <= EXTREMUM_PROTRUSION_LIMIT || protrusion(fitted) > EXTREMUM_PROTRUSION_LIMIT) continue;
+    const around = (h: Point, free: boolean): Point[] => {
+      if (!free) return [h];
+      const out: Point[] = [];
+      for (let dx = -UNBULGE_CELLS; dx <= UNBULGE_CELLS; dx++) for (let dy = -UNBULGE_CELLS; dy <= UNBULGE_CELLS; dy++) out.push({ x: h.x + dx * grid, y: h.y + dy * grid });
+      return out;
+    };
+    // The ideal handle carried with its on-curve point's rounding.
+    const target = (h: Point, p: Point, q: Point): Point => ({ x: h.x - p.x + q.x, y: h.y - p.y + q.y });
+    const wantOut = target(ideal[i]!.handleOut!, ideal[i]!.point, start.point);
+    const wantIn = target(ideal[j]!.handleIn!, ideal[j]!.point, end.point);
+    const crossedBefore = handlesCross(fitted);
+    const options: { segment: CubicSegment; cost: number }[] = [];
+    for (const hOut of around(start.handleOut!, freeOut)) {
+      if (hOut.x === start.point.x && hOut.y === start.point.y) continue;
+      for (const hIn of around(end.handleIn!, freeIn)) {
+        if (hIn.x === end.point.x && hIn.y === end.point.y) continue;
+        const segment = cubic(start.point, hOut, hIn, end.point);
+        if (protrusion(segment) > EXTREMUM_PROTRUSION_LIMIT || (!crossedBefore && handlesCross(segment))) continue;
+        options.push({ segment, cost: squaredDistance(hOut, wantOut) + squaredDistance(hIn, wantIn) });
+      }
+    }
+    options.sort((x, y) => x.cost - y.cost);
+    for (const { segment } of options) {
+      const error = measure(i, segment);
+      if (error > Math.max(tolerance, errors[i]!)) continue;
+      joins[i] = { ...start, handleOut: segment.p1 };
+      joins[j] = { ...end, handleIn: segment.p2 };
+      errors[i] = error;
+      break;
+    }
+  }
+}
+
+/** Rounding of a join that is not searched: corners, sloped joins with a line, smooth joins between two lines. */
 function roundJoin(node: FitNode, handleIn: Point | undefined, handleOut: Point | undefined, lineFrom: Point | undefined, lineTo: Point | undefined, grid: number, snap: (v: number) => number, mayMove: boolean): RoundedJoin {
   const p = node.point;
   const rounded = { x: snap(p.x), y: snap(p.y) };
@@ -96,7 +794,6 @@ function roundJoin(node: FitNode, handleIn: Point | undefined, handleOut: Point 
     };
     return { point: rounded, handleIn: handleIn && alongAxis(handleIn, -1), handleOut: handleOut && alongAxis(handleOut, 1) };
   }
-  if (handleIn && handleOut) return collinearTriple(p, handleIn, handleOut, grid, snap);
   // A sloped line on one side: continue the rounded line's direction as closely as the
   // grid allows, moving the on-curve point by up to one cell when that helps.
   const lineEnd = lineFrom ?? lineTo;
@@ -184,69 +881,4 @@ function bestHandleOnDirection(point: Point, handle: Point, originalPoint: Point
     }
   }
   return { handle: best, score: bestScore };
-}
-
-/**
- * Grid points for an on-curve point and both its handles, exactly collinear with the
- * handles on opposite sides when the search windows contain such a triple, nearest to
- * the ideal positions among those; otherwise the triple with the smallest turn.
- */
-function collinearTriple(p: Point, handleIn: Point, handleOut: Point, grid: number, snap: (v: number) => number): RoundedJoin {
-  const px = snap(p.x);
-  const py = snap(p.y);
-  const ix = snap(handleIn.x);
-  const iy = snap(handleIn.y);
-  const ox = snap(handleOut.x);
-  const oy = snap(handleOut.y);
-  let bestExact = Infinity;
-  let bestInexact = Infinity;
-  let best: RoundedJoin | undefined;
-  let fallback: RoundedJoin | undefined;
-  const cost = (x: number, y: number, ideal: Point): number => ((x - ideal.x) ** 2 + (y - ideal.y) ** 2) / (grid * grid);
-  for (let a = -POINT_SEARCH_RADIUS; a <= POINT_SEARCH_RADIUS; a++) {
-    for (let b = -POINT_SEARCH_RADIUS; b <= POINT_SEARCH_RADIUS; b++) {
-      const qx = px + a * grid;
-      const qy = py + b * grid;
-      const pointCost = cost(qx, qy, p);
-      for (let c = -HANDLE_SEARCH_RADIUS; c <= HANDLE_SEARCH_RADIUS; c++) {
-        for (let d = -HANDLE_SEARCH_RADIUS; d <= HANDLE_SEARCH_RADIUS; d++) {
-          const hx = ix + c * grid;
-          const hy = iy + d * grid;
-          // Incoming handle vector (from the handle to the point), in grid units.
-          const ux = Math.round((qx - hx) / grid);
-          const uy = Math.round((qy - hy) / grid);
-          if (ux === 0 && uy === 0) continue;
-          const inCost = pointCost + cost(hx, hy, handleIn);
-          if (inCost >= bestExact) continue;
-          for (let e = -HANDLE_SEARCH_RADIUS; e <= HANDLE_SEARCH_RADIUS; e++) {
-            for (let f = -HANDLE_SEARCH_RADIUS; f <= HANDLE_SEARCH_RADIUS; f++) {
-              const gx = ox + e * grid;
-              const gy = oy + f * grid;
-              const vx = Math.round((gx - qx) / grid);
-              const vy = Math.round((gy - qy) / grid);
-              if (vx === 0 && vy === 0) continue;
-              const dotProduct = ux * vx + uy * vy;
-              if (dotProduct <= 0) continue;
-              const crossProduct = ux * vy - uy * vx;
-              const total = inCost + cost(gx, gy, handleOut);
-              if (crossProduct === 0) {
-                if (total < bestExact) {
-                  bestExact = total;
-                  best = { point: { x: qx, y: qy }, handleIn: { x: hx, y: hy }, handleOut: { x: gx, y: gy } };
-                }
-              } else if (best === undefined) {
-                const sine = Math.abs(crossProduct) / (Math.hypot(ux, uy) * Math.hypot(vx, vy));
-                const score = sine * 1e4 + total;
-                if (score < bestInexact) {
-                  bestInexact = score;
-                  fallback = { point: { x: qx, y: qy }, handleIn: { x: hx, y: hy }, handleOut: { x: gx, y: gy } };
-                }
-              }
-            }
-          }
-        }
-      }
-    }
-  }
-  return best ?? fallback ?? { point: { x: px, y: py }, handleIn: { x: ix, y: iy }, handleOut: { x: ox, y: oy } };
 }

@@ -8,12 +8,16 @@ export { fitGlyph, type GlyphChain, type GlyphFit } from './fit-glyph.ts';
 export {
   DEFAULT_AXIS_SNAP_DEGREES,
   DEFAULT_CORNER_ANGLE_DEGREES,
+  DEFAULT_FAIRING,
+  DEFAULT_FIT_MODE,
   DEFAULT_GRID,
   DEFAULT_TOLERANCE,
   resolveFitOptions,
+  type FitMode,
   type FitOptions,
   type ResolvedFitOptions,
 } from './fit-options.ts';
+export { fitPeriodicSpline, fitSmoothContour, fitSmoothRuns, type PeriodicSplineFit, type SmoothFitSettings } from './smooth-fit.ts';
 export {
   KINK_MAX_DEGREES,
   KINK_MIN_DEGREES,
@@ -24,5 +28,16 @@ export {
   type GlyphFitReport,
 } from './quality-report.ts';
 export { handlesCross } from './finishing.ts';
+export {
+  fairSmoothJoins,
+  fairSmoothJoinsWithReport,
+  G2_RELATIVE_TOLERANCE,
+  joinCurvatures,
+  type FairingOptions,
+  type FairingOutcome,
+  type FairingResult,
+  type JoinCurvature,
+  type JoinFairing,
+} from './fairing.ts';
 export { EXTREMUM_PROTRUSION_LIMIT, MIN_POINT_SPACING_UNITS, segmentExtrema, type SegmentExtremum } from './extrema.ts';
 export type { FitNode, FitSpan, FittedContour } from './fitted-contour.ts';

@@ -14,11 +14,24 @@ import { contourSegments } from '../../core/outline/index.ts';
 import { DEFAULT_TOLERANCE, fitGlyph, type GlyphChain } from '../../core/fit/index.ts';
 import { REFERENCE_FONTS } from '../support/require-tool.ts';
 import { tracedGlyphChains } from './fit.bench.ts';
+import { loadFont } from '../raster/reference-render.ts';
+import { commandsToContours } from '../fit/outline-metrics.ts';
 
 /** The glyphs compared: rounds, stems, bowls, diagonals and figures from both reference fonts. */
 const GLYPHS = 'aegnosBHRS28';
 /** The maximum error every fitter is held to, font units (Stemline's default tolerance at 1 px per unit). */
 const MAX_ERROR = DEFAULT_TOLERANCE;
+
+/** A tighter error for the segment counts: 0.75 units, the fitter's floor of 0.75 px at 1 px per unit (core/pipeline MIN_TOLERANCE_PIXELS). */
+const TIGHT_MAX_ERROR = 0.75;
+
+/** Segments of the reference fonts' own outlines of GLYPHS (lines and curves; a closing line back onto the start is not counted). */
+function fontSegmentCount(): number {
+  return [REFERENCE_FONTS.cantarellRegular.path, REFERENCE_FONTS.libertineRegular.path].reduce((total, font) => {
+    const parsed = loadFont(font);
+    return total + [...GLYPHS].reduce((n, character) => n + commandsToContours(parsed.charToGlyph(character).path.commands).reduce((m, c) => m + c.length, 0), 0);
+  }, 0);
+}
 
 export const PEER_TASKS = {
   stemline: `Stemline fit, ${GLYPHS.length * 2} glyphs at 1 px/unit`,
@@ -34,23 +47,23 @@ function glyphChains(): GlyphChain[][] {
   return chainsCache;
 }
 
-function stemlineSegments(glyphs: readonly GlyphChain[][]): Segment[][] {
-  return glyphs.flatMap((chains) => fitGlyph(chains, { tolerance: MAX_ERROR }).outline.contours.map((c) => contourSegments(c)));
+function stemlineSegments(glyphs: readonly GlyphChain[][], maxError = MAX_ERROR): Segment[][] {
+  return glyphs.flatMap((chains) => fitGlyph(chains, { tolerance: maxError }).outline.contours.map((c) => contourSegments(c)));
 }
 
-function fitCurveSegments(glyphs: readonly GlyphChain[][]): Segment[][] {
+function fitCurveSegments(glyphs: readonly GlyphChain[][], maxError = MAX_ERROR): Segment[][] {
   return glyphs.flatMap((chains) =>
     chains.map((chain) => {
       const points = chain.points.map((p): [number, number] => [p.x, p.y]);
       const first = points[0];
       if (first) points.push(first);
-      return fitCurve(points, MAX_ERROR * MAX_ERROR).map(([a, b, c, d]) => cubic({ x: a[0], y: a[1] }, { x: b[0], y: b[1] }, { x: c[0], y: c[1] }, { x: d[0], y: d[1] }));
+      return fitCurve(points, maxError * maxError).map(([a, b, c, d]) => cubic({ x: a[0], y: a[1] }, { x: b[0], y: b[1] }, { x: c[0], y: c[1] }, { x: d[0], y: d[1] }));
     }),
   );
 }
 
 let paperReady = false;
-function paperSegments(glyphs: readonly GlyphChain[][]): Segment[][] {
+function paperSegments(glyphs: readonly GlyphChain[][], maxError = MAX_ERROR): Segment[][] {
   if (!paperReady) {
     paper.setup(new paper.Size(1, 1));
     paperReady = true;
@@ -61,7 +74,7 @@ function paperSegments(glyphs: readonly GlyphChain[][]): Segment[][] {
       const first = points[0];
       if (first) points.push(new paper.Point(first.x, first.y));
       const path = new paper.Path({ segments: points, insert: false });
-      path.simplify(MAX_ERROR * MAX_ERROR);
+      path.simplify(maxError * maxError);
       const segments: CubicSegment[] = path.curves.map((c) =>
         cubic({ x: c.point1.x, y: c.point1.y }, { x: c.point1.x + c.handle1.x, y: c.point1.y + c.handle1.y }, { x: c.point2.x + c.handle2.x, y: c.point2.y + c.handle2.y }, { x: c.point2.x, y: c.point2.y }),
       );
@@ -109,5 +122,11 @@ export function peerReport(bench: Bench): string[] {
     lines.push(`fit segments ratio vs ${name}: ${(count(ours) / count(segments)).toFixed(3)}`);
     lines.push(`fit time ratio vs ${name}: ${(ourTime / time).toFixed(3)}`);
   }
+  // Context for the segment ratios: the professional outlines' own count on these glyphs
+  // is the economy a type designer accepts, and the peers' counts grow fastest as the
+  // error tightens (at the fitter's floor of 0.75 px here).
+  lines.push(`the fonts' own outlines of these glyphs: ${fontSegmentCount()} segments`);
+  const tight = { stemline: stemlineSegments(glyphs, TIGHT_MAX_ERROR), 'fit-curve': fitCurveSegments(glyphs, TIGHT_MAX_ERROR), 'paper.js': paperSegments(glyphs, TIGHT_MAX_ERROR) };
+  lines.push(`at max error ${TIGHT_MAX_ERROR}: Stemline ${count(tight.stemline)}, fit-curve ${count(tight['fit-curve'])}, paper.js ${count(tight['paper.js'])} segments; ratios ${(count(tight.stemline) / count(tight['fit-curve'])).toFixed(3)} and ${(count(tight.stemline) / count(tight['paper.js'])).toFixed(3)}`);
   return lines;
 }

@@ -81,6 +81,25 @@ describe('stemline trace', () => {
     expect(report.tolerance).toBeGreaterThan(0);
   });
 
+  it('fits the ring and disc curvature-continuously in smooth mode, with points at their extremes', async () => {
+    const result = await run(['trace', shapes, '--json', '--dpi', '600', '--fit-mode', 'smooth']);
+    expect(result.code).toBe(0);
+    const report = JSON.parse(result.out) as { letters: Array<{ segments: number; corners: number; onCurvePoints: number; maxDeviation: number; warnings: unknown[] }>; tolerance: number };
+    const [square, ring, disc] = report.letters;
+    // A circle has four axis extremes, each an on-curve point (common practice), and no corners.
+    expect(disc).toMatchObject({ corners: 0, onCurvePoints: 4 });
+    expect(ring).toMatchObject({ corners: 0, onCurvePoints: 8 });
+    // The square keeps its four corners in smooth mode too.
+    expect(square?.corners).toBe(4);
+    for (const letter of [square, ring, disc]) expect(letter?.maxDeviation).toBeLessThanOrEqual(report.tolerance);
+  });
+
+  it('exits 2 naming the option for an unknown fit mode', async () => {
+    const result = await run(['trace', shapes, '--json', '--fit-mode', 'wavy']);
+    expect(result.code).toBe(2);
+    expect(result.err).toMatch(/--fit-mode takes economy or smooth, not "wavy"/);
+  });
+
   it('exits 1 naming the file for a scan it cannot read', async () => {
     const broken = join(folder, 'broken.jpg');
     writeFileSync(broken, 'not really a jpeg');

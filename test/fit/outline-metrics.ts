@@ -181,6 +181,35 @@ export function corners(contours: readonly SegmentContour[], minTurnDegrees = 20
   return joins(contours).filter((j) => j.turn > minTurnDegrees).map((j) => j.point);
 }
 
+/**
+ * Places where the outline turns by more than `minTurnDegrees` within `window` units
+ * of arc: corners, and also the micro-rounds some fonts draw at a corner (two points
+ * three units apart with the turn inside the tiny curve between them, as at the top
+ * corners of Linux Libertine's T), which a scan at 1 px per unit cannot tell from a
+ * corner. Sampled every half unit; each returned point is a sample where the chord
+ * directions over the half-windows before and after it differ by more than the angle.
+ */
+export function turnZones(contours: readonly SegmentContour[], minTurnDegrees = 20, window = 4): Point[] {
+  const out: Point[] = [];
+  const half = window / 2;
+  const step = 0.5;
+  const reach = Math.max(1, Math.round(half / step));
+  for (const c of contours) {
+    const raw = samplePoints([c], step);
+    const points = raw.filter((p, i) => i === 0 || Math.hypot(p.x - raw[i - 1]!.x, p.y - raw[i - 1]!.y) > 1e-9);
+    const n = points.length;
+    if (n < 2 * reach + 1) continue;
+    for (let i = 0; i < n; i++) {
+      const a = points[(i - reach + n) % n]!;
+      const b = points[i]!;
+      const d = points[(i + reach) % n]!;
+      const turn = Math.abs(Math.atan2((b.x - a.x) * (d.y - b.y) - (b.y - a.y) * (d.x - b.x), (b.x - a.x) * (d.x - b.x) + (b.y - a.y) * (d.y - b.y)));
+      if ((turn * 180) / Math.PI > minTurnDegrees) out.push(b);
+    }
+  }
+  return out;
+}
+
 export function kinks(contours: readonly SegmentContour[], min = 0.3, max = 8): number {
   return joins(contours).filter((j) => j.turn >= min && j.turn <= max).length;
 }

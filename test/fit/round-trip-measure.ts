@@ -10,10 +10,11 @@
 import type { PathCommand } from 'opentype.js/dist/opentype.js';
 import { traceScan, type GreyRaster } from '../../core/raster/index.ts';
 import { fitGlyph, type FitOptions } from '../../core/fit/index.ts';
+import type { GlyphOutline } from '../../core/outline/index.ts';
 import { degrade, type Degradation } from '../raster/degrade.ts';
 import { addGlyphPath, loadFont, renderAntialiased, type FontPlacement } from '../raster/reference-render.ts';
 import { REFERENCE_FONTS } from '../support/require-tool.ts';
-import { commandsToContours, contourAreas, corners, extremaInside, hausdorff, kinks, matched, onCurveCount, outlineToContours } from './outline-metrics.ts';
+import { commandsToContours, contourAreas, corners, extremaInside, hausdorff, kinks, matched, onCurveCount, outlineToContours, turnZones } from './outline-metrics.ts';
 
 export type RoundTripVariant = 'clean 1 px/unit' | 'clean 0.5 px/unit' | 'rough 1 px/unit';
 export const ALL_VARIANTS: readonly RoundTripVariant[] = ['clean 1 px/unit', 'clean 0.5 px/unit', 'rough 1 px/unit'];
@@ -60,6 +61,8 @@ export interface GlyphMeasurement {
   readonly fittedCorners: number;
   readonly recalledCorners: number;
   readonly preciseCorners: number;
+  /** Fitted corners within 4 units of a place where the font turns > 20° within 4 units of arc (its corners and micro-rounds). */
+  readonly turnZoneCorners: number;
   readonly kinks: number;
   readonly fontKinks: number;
   readonly contours: number;
@@ -69,6 +72,8 @@ export interface GlyphMeasurement {
   readonly fitMs: number;
   /** Fitter's own report: tolerance exceeded (outside corners), for diagnosis. */
   readonly maxDeviationOutsideCorners: number;
+  /** The fitted outline (for figures and inspection). */
+  readonly outline: GlyphOutline;
 }
 
 export interface VariantSummary {
@@ -85,6 +90,8 @@ export interface VariantSummary {
   readonly fontExtremaInside: number;
   readonly cornerRecall: number;
   readonly cornerPrecision: number;
+  /** Precision counting the font's micro-rounds (a turn > 20° within 4 units of arc) as corners. */
+  readonly cornerPrecisionWithRounds: number;
   readonly kinks: number;
   readonly fontKinks: number;
   readonly contourMismatches: number;
@@ -173,6 +180,7 @@ export function measureGlyph(font: RoundTripFont, commands: readonly PathCommand
     fittedCorners: fittedCorners.length,
     recalledCorners: matched(fontCorners, fittedCorners, CORNER_MATCH_UNITS),
     preciseCorners: matched(fittedCorners, fontCorners, CORNER_MATCH_UNITS),
+    turnZoneCorners: matched(fittedCorners, turnZones(reference, CORNER_TURN_DEGREES, CORNER_MATCH_UNITS), CORNER_MATCH_UNITS),
     kinks: kinks(result),
     fontKinks: kinks(reference),
     contours: result.length,
@@ -180,6 +188,7 @@ export function measureGlyph(font: RoundTripFont, commands: readonly PathCommand
     windingCorrect: windingByDepth && Math.abs(fittedFill - fontFill) <= 0.02 * fontFill,
     fitMs,
     maxDeviationOutsideCorners: fitted.report.maxDeviationOutsideCorners,
+    outline: fitted.outline,
   };
 }
 
@@ -214,6 +223,7 @@ export function summarize(glyphs: readonly GlyphMeasurement[]): VariantSummary[]
       fontExtremaInside: sum((g) => g.fontExtremaInside),
       cornerRecall: sum((g) => g.recalledCorners) / Math.max(1, sum((g) => g.fontCorners)),
       cornerPrecision: sum((g) => g.preciseCorners) / Math.max(1, sum((g) => g.fittedCorners)),
+      cornerPrecisionWithRounds: sum((g) => g.turnZoneCorners) / Math.max(1, sum((g) => g.fittedCorners)),
       kinks: sum((g) => g.kinks),
       fontKinks: sum((g) => g.fontKinks),
       contourMismatches: list.filter((g) => g.contours !== g.fontContours).length,
@@ -264,6 +274,7 @@ export function summaryTable(summaries: readonly VariantSummary[]): Record<strin
     'extrema inside >0.5': s.extremaInside,
     'corner recall': +s.cornerRecall.toFixed(3),
     'corner precision': +s.cornerPrecision.toFixed(3),
+    'precision, micro-rounds as corners': +s.cornerPrecisionWithRounds.toFixed(3),
     kinks: s.kinks,
     'font kinks': s.fontKinks,
     'contour mismatches': s.contourMismatches,

@@ -14,7 +14,8 @@
 
 import { beforeAll, describe, expect, it } from 'vitest';
 import { CANTARELL, LIBERTINE, describeWithFont, type ReferenceFont } from '../raster/require-font.ts';
-import { measureRoundTrip, summaryTable, type RoundTripFont, type VariantSummary } from './round-trip-measure.ts';
+import { contourSegments } from '../../core/outline/index.ts';
+import { measureRoundTrip, summaryTable, type GlyphMeasurement, type RoundTripFont, type VariantSummary } from './round-trip-measure.ts';
 
 const SUBSET = 'aegnosBHRS28';
 
@@ -103,6 +104,31 @@ function roundTripSuite(font: ReferenceFont & { label: RoundTripFont }): void {
     });
   });
 }
+
+describeWithFont('shallow curves and stems of Linux Libertine', LIBERTINE, () => {
+  let glyphs: readonly GlyphMeasurement[] = [];
+  beforeAll(() => {
+    glyphs = measureRoundTrip({ fonts: ['Linux Libertine Regular'], glyphs: 'IZ', variants: ['clean 1 px/unit'] }).glyphs;
+  }, 60_000);
+
+  it('draws the cupped serif feet of I as curves and its stem as two exact vertical lines', () => {
+    const letterI = glyphs.find((g) => g.character === 'I')!;
+    // Reference: the font's own I has 14 on-curve points; its four serif end faces bulge
+    // about 4 units with the x-extremum inside the segment, where the fitter must add a
+    // point (the extremum rule), so 18 is the count a designer following that rule gets.
+    expect(letterI.onCurve).toBeLessThanOrEqual(letterI.fontOnCurve + 4);
+    const verticals = letterI.outline.contours.flatMap((c) => contourSegments(c)).filter((s) => s.kind === 'line' && s.p0.x === s.p1.x && Math.abs(s.p1.y - s.p0.y) >= 300);
+    expect(verticals).toHaveLength(2);
+    expect(letterI.kinks).toBe(0);
+  });
+
+  it('fits the gently bowed diagonal of Z without polygon pieces or kinks', () => {
+    const letterZ = glyphs.find((g) => g.character === 'Z')!;
+    // Reference: the font's Z (24 on-curve points); measured 26 and no kinks.
+    expect(letterZ.onCurve).toBeLessThanOrEqual(Math.ceil(1.15 * letterZ.fontOnCurve));
+    expect(letterZ.kinks).toBe(0);
+  });
+});
 
 describe('glyph round trip through the fitter', () => {
   roundTripSuite({ ...CANTARELL, label: 'Cantarell Regular' });

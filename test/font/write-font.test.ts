@@ -70,6 +70,18 @@ const cases: WriterCase[] = [
     label: 'a character beyond the BMP (😀) and an unencoded alternate',
     source: { ...TEST_FONT, glyphs: [...TEST_GLYPHS, { character: '😀', outline: LETTER_O, advanceWidth: 700 }] },
   },
+  {
+    label: 'glyphs for several characters: the space also for the no-break space, the hyphen also for the soft hyphen, an o also for 😀 (beyond the BMP)',
+    source: {
+      ...TEST_FONT,
+      glyphs: [
+        { character: ' ', characters: [' ', '\u00a0'], outline: { contours: [] }, advanceWidth: 250 },
+        { character: '-', characters: ['-', '\u00ad', '\u2010'], outline: { contours: [rectangle(40, 220, 300, 290)] }, advanceWidth: 340 },
+        { character: 'o', characters: ['o', '😀'], outline: LETTER_O, advanceWidth: 580 },
+        { character: 'I', outline: LETTER_I, advanceWidth: 300 },
+      ],
+    },
+  },
   { label: 'no glyphs at all (only .notdef and the space the writer adds)', source: { ...TEST_FONT, glyphs: [] } },
   {
     label: 'its own .notdef and space, and a glyph placed by its sidebearing',
@@ -85,6 +97,9 @@ const cases: WriterCase[] = [
   },
   { label: '500 synthetic glyphs', source: syntheticFont(500) },
 ];
+
+/** Every code point the glyph is for: its characters, or its one character. */
+const codePointsOf = (glyph: FontGlyph): number[] => (glyph.characters ?? (glyph.character === '' ? [] : [glyph.character])).map((c) => c.codePointAt(0)!);
 
 function expectedGlyphs(source: FontSource): Map<string, FontGlyph> {
   const byName = new Map<string, FontGlyph>();
@@ -159,15 +174,14 @@ describeWith('a written font, as browsers and fontTools see it', [OTS_SANITIZE, 
           const advance = Math.round(glyph.advanceWidth);
           // Reference: fontTools hmtx and cmap.
           expect(view.hmtx[name]?.[0]).toBe(advance);
-          if (glyph.character !== '') {
-            const codePoint = glyph.character.codePointAt(0)!;
+          for (const codePoint of codePointsOf(glyph)) {
             expect(view.cmap[String(codePoint)]).toBe(name);
             // Reference: fontkit (independent parser).
             expect(font.glyphForCodePoint(codePoint).advanceWidth).toBe(advance);
             expect(font.glyphForCodePoint(codePoint).name).toBe(name);
           }
         }
-        const encoded = source.glyphs.filter((g) => g.character !== '').map((g) => g.character.codePointAt(0)!);
+        const encoded = source.glyphs.flatMap(codePointsOf);
         // Reference: fontkit's character set; the writer adds U+0020 when the source has none.
         // fontkit also lists U+FFFF, the end marker every cmap format 4 subtable carries
         // (OpenType spec, 'cmap' format 4), which maps to glyph 0 — in Debian's own fonts too.
@@ -324,6 +338,16 @@ describe('font sources that cannot make a font', () => {
   it('refuses two glyphs for one character, and two glyphs with one name', () => {
     expectFontError(withGlyphs({ character: 'I', outline: LETTER_I, advanceWidth: 300 }, { character: 'I', name: 'I.alt', outline: LETTER_I, advanceWidth: 300 }), 'duplicate-character', /"I" and "I.alt".*U\+0049/);
     expectFontError(withGlyphs({ character: 'I', outline: LETTER_I, advanceWidth: 300 }, { character: 'l', name: 'I', outline: LETTER_I, advanceWidth: 300 }), 'duplicate-glyph-name', /both named "I"/);
+  });
+
+  it('refuses a character listed by two glyphs, naming both, and a list that does not start with the glyph’s own character', () => {
+    const space = { character: ' ', characters: [' ', '\u00a0'], outline: { contours: [] }, advanceWidth: 250 };
+    expectFontError(withGlyphs(space, { character: '\u00a0', name: 'nbspace', outline: { contours: [] }, advanceWidth: 250 }), 'duplicate-character', /"space" and "nbspace" are both for U\+00A0/, 'nbspace');
+    expectFontError(withGlyphs({ character: 'o', characters: ['o', '😀'], outline: LETTER_O, advanceWidth: 580 }, { character: 'O', characters: ['O', '😀'], outline: LETTER_O, advanceWidth: 700 }), 'duplicate-character', /"o" and "O" are both for U\+1F600/);
+    expectFontError(withGlyphs({ ...space, characters: ['\u00a0', ' '] }), 'bad-character', /U\+0020.*starts with "\u00a0".*own character/);
+    expectFontError(withGlyphs({ ...space, characters: [' ', '\u00a0', ' '] }), 'bad-character', /lists U\+0020 twice/);
+    expectFontError(withGlyphs({ ...space, characters: [' ', 'ab'] }), 'bad-character', /also lists "ab".*2 characters/);
+    expectFontError(withGlyphs({ character: '', name: 'a.alt', characters: ['a'], outline: LETTER_I, advanceWidth: 300 }), 'bad-character', /"a.alt" has character '' but lists/);
   });
 
   it('refuses glyph names a font cannot hold and unencoded glyphs without a name', () => {

@@ -19,7 +19,7 @@ function sampleProject(): ProjectData {
     scans: [{ id: 'sheet-1', path: 'scans/capitals.png', dpi: 600, characters: 'ABC', threshold: 'otsu' }],
     glyphs: [
       {
-        character: 'I',
+        unicodes: ['0049'], // I
         advanceWidth: 300,
         leftSidebearing: 50,
         outline: { contours: [[[50, 0, 'on'], [250, 0, 'on'], [250, 700, 'on'], [50, 700, 'on']]] },
@@ -27,7 +27,7 @@ function sampleProject(): ProjectData {
         fitOverrides: { forcedCorners: [12], forcedSmooth: [] },
       },
       {
-        character: 'O',
+        unicodes: ['004F'], // O
         advanceWidth: 720,
         outline: { contours: [[[360, -10, 'on-smooth'], [560, -10, 'off'], [690, 140, 'off'], [690, 345, 'on-smooth'], [690, 550, 'off'], [560, 710, 'off'], [360, 710, 'on-smooth'], [160, 710, 'off'], [30, 550, 'off'], [30, 345, 'on-smooth'], [30, 140, 'off'], [160, -10, 'off']]] },
       },
@@ -75,9 +75,9 @@ describe('project files', () => {
 
   it('refuse, politely and without touching it, a project from a newer version', async () => {
     const path = join(folder(), 'future.stemline');
-    const text = serializeProject(sampleProject()).replace('"formatVersion": 1', '"formatVersion": 7');
+    const text = serializeProject(sampleProject()).replace('"formatVersion": 2', '"formatVersion": 7');
     writeFileSync(path, text);
-    await expectProjectError(loadProject(path), 'project-too-new', /saved by a newer Stemline \(project format 7\); this version .* reads up to format 1\. Update Stemline/);
+    await expectProjectError(loadProject(path), 'project-too-new', /saved by a newer Stemline \(project format 7\); this version .* reads up to format 2\. Update Stemline/);
     expect(readFileSync(path, 'utf8')).toBe(text);
   });
 

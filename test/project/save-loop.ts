@@ -13,7 +13,7 @@ const GLYPHS_PER_VERSION = 400;
 
 function version(n: number): ProjectData {
   const glyph = (i: number): ProjectData['glyphs'][number] => ({
-    character: String.fromCodePoint(0x4e00 + i),
+    unicodes: [(0x4e00 + i).toString(16).toUpperCase()],
     advanceWidth: 1000,
     outline: { contours: [Array.from({ length: 24 }, (_, k) => [100 + k * 30, (n + i + k) % 700, k % 3 === 0 ? 'on' : k % 3 === 1 ? 'off' : 'off'] as [number, number, 'on' | 'off'])] },
   });

@@ -1,5 +1,5 @@
 // `stemline build SHEET... --chars "STRING" -o FONT.otf [--family NAME] [--style NAME]
-// [--upm N] [--cap-height UNITS]`: the whole job — decode, trace, fit, metrics, font —
+// [--upm N] [--cap-height UNITS]` (and the fit and scan options): the whole job — decode, trace, fit, metrics, font —
 // writing an OpenType (CFF) test font and printing one line per glyph. A contract
 // other tools rely on: extend it compatibly.
 import { basename } from 'node:path';
@@ -14,6 +14,7 @@ import { numberOption, parseCommandLine } from '../parse-options.ts';
 import type { CliCommand, CliStreams } from '../run-cli.ts';
 import { EXIT_BAD_INPUT, EXIT_OK } from '../usage.ts';
 import { SCAN_OPTIONS_HELP, scanOptionSpec, scanSettingsFrom } from './scan-options.ts';
+import { FIT_OPTIONS_HELP, fitOptionSpec, fitOptionsFrom } from './fit-cli-options.ts';
 
 const COMMAND = 'build';
 /** Units per em accepted (OpenType 'head' table: 16 to 16384). */
@@ -30,6 +31,7 @@ export const buildCommand: CliCommand = {
     '--style NAME                   style name (default Regular)',
     '--upm N                        units per em (default 1000)',
     `--cap-height UNITS             the drawn cap height becomes this (default ${DEFAULT_CAP_HEIGHT_UNITS} per 1000 units per em)`,
+    ...FIT_OPTIONS_HELP,
     ...SCAN_OPTIONS_HELP.filter((line) => !line.startsWith('--characters')),
   ],
   async run(args, streams) {
@@ -40,6 +42,7 @@ export const buildCommand: CliCommand = {
       style: { type: 'string' },
       upm: { type: 'string' },
       'cap-height': { type: 'string' },
+      ...fitOptionSpec,
       ...scanOptionSpec,
     });
     if (positionals.length === 0) throw new CliUsageError(`stemline ${COMMAND}: name at least one sheet, e.g. "stemline ${COMMAND} capitals.png --chars ABC -o draft.otf".`);
@@ -50,6 +53,7 @@ export const buildCommand: CliCommand = {
     if (!Number.isInteger(unitsPerEm)) throw new CliUsageError(`stemline ${COMMAND}: --upm takes a whole number.`);
     const capHeight = numberOption(COMMAND, 'cap-height', values['cap-height'], 1, unitsPerEm) ?? Math.round((DEFAULT_CAP_HEIGHT_UNITS * unitsPerEm) / DEFAULT_UNITS_PER_EM);
     const settings = scanSettingsFrom(COMMAND, values);
+    const fit = fitOptionsFrom(COMMAND, values);
 
     const images = [];
     for (const sheet of positionals) {
@@ -60,7 +64,7 @@ export const buildCommand: CliCommand = {
     }
     let font: DraftFont;
     try {
-      const sheets = traceSheets(images, values.chars, { scan: settings.trace, capHeightUnits: capHeight });
+      const sheets = traceSheets(images, values.chars, { scan: settings.trace, fit, capHeightUnits: capHeight });
       font = draftFont(sheets, {
         familyName: values.family ?? familyFromFileName(values.output),
         styleName: values.style ?? 'Regular',

@@ -7,6 +7,7 @@ import { checkOutline, type OutlineWarning } from '../../../core/checks/index.ts
 import { outlineFromJson, type GlyphOutline } from '../../../core/outline/index.ts';
 import { readFont } from '../../io/font/read-font.ts';
 import { parseProject } from '../../io/project/project-file.ts';
+import { glyphCharacters } from '../../io/project/font-from-project.ts';
 import { CliUsageError } from '../cli-usage-error.ts';
 import { parseCommandLine } from '../parse-options.ts';
 import type { CliCommand } from '../run-cli.ts';
@@ -25,7 +26,7 @@ function loadGlyphs(bytes: Uint8Array, name: string): { glyphs: Array<{ name: st
   const firstByte = bytes.find((b) => b !== 0x20 && b !== 0x0a && b !== 0x0d && b !== 0x09);
   if (firstByte === 0x7b) { // "{": a project file
     const project = parseProject(new TextDecoder().decode(bytes), name);
-    return { kind: 'project', glyphs: project.glyphs.map((g, i) => ({ name: g.name ?? `glyph ${i + 1}`, character: g.character, outline: outlineFromJson(g.outline) })) };
+    return { kind: 'project', glyphs: project.glyphs.map((g, i) => ({ name: g.name ?? `glyph ${i + 1}`, character: glyphCharacters(g)[0] ?? '', outline: outlineFromJson(g.outline) })) };
   }
   const font = readFont(bytes, name);
   return { kind: 'font', glyphs: font.glyphs.filter((g) => g.index !== 0).map((g) => ({ name: g.name, character: g.character, outline: g.outline })) };

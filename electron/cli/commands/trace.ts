@@ -1,4 +1,5 @@
-// `stemline trace IMAGE -o OUT.svg [--tolerance UNITS] [--corner-angle DEGREES] [--json]`:
+// `stemline trace IMAGE -o OUT.svg [--tolerance UNITS] [--corner-angle DEGREES] [--json]`
+// (and `--fit-mode`, `--fair-joins`, the scan options):
 // the whole tracing job on one scan — decode, threshold, cleanup, boundaries, letters,
 // fitting — writing the fitted outlines as SVG on the image's pixel frame; `--json`
 // prints the quality report. A contract other tools rely on: extend it compatibly.
@@ -7,16 +8,14 @@ import { outlineSvg } from '../../io/outline-svg.ts';
 import { writeFileAtomic } from '../../io/atomic-write.ts';
 import { traceLetters, type TracedLetters } from '../../../core/pipeline/index.ts';
 import { DEFAULT_CAP_HEIGHT_UNITS } from '../../../core/metrics/index.ts';
-import { DEFAULT_CORNER_ANGLE_DEGREES, DEFAULT_TOLERANCE, type FitOptions } from '../../../core/fit/index.ts';
 import { CliUsageError } from '../cli-usage-error.ts';
 import { numberOption, parseCommandLine } from '../parse-options.ts';
 import type { CliCommand } from '../run-cli.ts';
 import { EXIT_OK } from '../usage.ts';
 import { SCAN_OPTIONS_HELP, scanOptionSpec, scanSettingsFrom } from './scan-options.ts';
+import { FIT_OPTIONS_HELP, fitOptionSpec, fitOptionsFrom } from './fit-cli-options.ts';
 
 const COMMAND = 'trace';
-/** Accepted tolerance range in font units: below 0.1 is finer than the unit grid; above 50 loses the drawing. */
-const TOLERANCE_RANGE = { min: 0.1, max: 50 } as const;
 
 export const traceCommand: CliCommand = {
   name: COMMAND,
@@ -24,8 +23,7 @@ export const traceCommand: CliCommand = {
   purpose: 'fit type-quality cubic outlines to the letters of a scan (SVG on the image\'s pixel frame)',
   options: [
     '-o, --output OUT.svg           where to write the outlines',
-    `--tolerance UNITS              largest distance from the traced ink, in font units (default ${DEFAULT_TOLERANCE}, never under 0.75 px)`,
-    `--corner-angle DEGREES         tangent turns sharper than this are corners (default ${DEFAULT_CORNER_ANGLE_DEGREES})`,
+    ...FIT_OPTIONS_HELP,
     `--cap-height UNITS             font units the drawn cap height (or typical letter height) becomes (default ${DEFAULT_CAP_HEIGHT_UNITS})`,
     '--json                         print the quality report',
     ...SCAN_OPTIONS_HELP,
@@ -33,8 +31,7 @@ export const traceCommand: CliCommand = {
   async run(args, streams) {
     const { values, positionals } = parseCommandLine(COMMAND, args, {
       output: { type: 'string', short: 'o' },
-      tolerance: { type: 'string' },
-      'corner-angle': { type: 'string' },
+      ...fitOptionSpec,
       'cap-height': { type: 'string' },
       json: { type: 'boolean' },
       ...scanOptionSpec,
@@ -43,11 +40,7 @@ export const traceCommand: CliCommand = {
     if (image === undefined) throw new CliUsageError(`stemline ${COMMAND}: name the scan to trace, e.g. "stemline ${COMMAND} letter.png -o letter.svg".`);
     if (extra.length > 0) throw new CliUsageError(`stemline ${COMMAND}: one image at a time; unexpected "${extra.join(' ')}".`);
     if (values.output === undefined && values.json !== true) throw new CliUsageError(`stemline ${COMMAND}: say where to write the SVG with -o OUT.svg, or ask for --json.`);
-    const fit: { -readonly [K in keyof FitOptions]: FitOptions[K] } = {};
-    const tolerance = numberOption(COMMAND, 'tolerance', values.tolerance, TOLERANCE_RANGE.min, TOLERANCE_RANGE.max);
-    if (tolerance !== undefined) fit.tolerance = tolerance;
-    const cornerAngle = numberOption(COMMAND, 'corner-angle', values['corner-angle'], 1, 179);
-    if (cornerAngle !== undefined) fit.cornerAngleDegrees = cornerAngle;
+    const fit = fitOptionsFrom(COMMAND, values);
     const capHeight = numberOption(COMMAND, 'cap-height', values['cap-height'], 16, 16384);
     const settings = scanSettingsFrom(COMMAND, values);
 

@@ -7,14 +7,22 @@ import type { GlyphOutline } from '../../../core/outline/index.ts';
 /** One glyph to put into the font. */
 export interface FontGlyph {
   /**
-   * The character the glyph is for: exactly one Unicode code point, or '' for a
-   * glyph reached by no character (an alternate, a component).
+   * The glyph's own character (its primary one): exactly one Unicode code point, or
+   * '' for a glyph reached by no character (an alternate, a component).
    */
   readonly character: string;
   /**
+   * Every character the glyph is for, in order, each one code point: `character`
+   * first, then any others the font maps to the same drawing (a no-break space with
+   * the space, a soft hyphen with the hyphen). The cmap maps all of them to this
+   * glyph. Default: just `character` (none when it is ''). The same order as the UFO
+   * format's list of unicode values, whose first is the primary one.
+   */
+  readonly characters?: readonly string[];
+  /**
    * The glyph name. Default: the Adobe Glyph List for New Fonts name of the
-   * character, or uniXXXX / uXXXXX (see glyph-names.ts). Required when `character`
-   * is ''.
+   * (primary) character, or uniXXXX / uXXXXX (see glyph-names.ts). Required when
+   * `character` is ''.
    */
   readonly name?: string;
   readonly outline: GlyphOutline;

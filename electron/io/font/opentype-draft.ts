@@ -43,13 +43,21 @@ function cffString(text: string, fallback: string): string {
   return words.length > 0 ? words.join(' ') : fallback;
 }
 
-/** The font as opentype.js writes it (before the fixes in finish-tables.ts). */
+/**
+ * The font as opentype.js writes it (before the fixes in finish-tables.ts). Every
+ * code point of a glyph goes into the cmap through `unicodes`. opentype.js 2.0.0
+ * decides whether to write the format 12 subtable (code points beyond U+FFFF) from
+ * each glyph's `unicode` alone (makeCmapTable), so `unicode` is the glyph's largest
+ * code point — else a glyph whose primary character is in the BMP would silently
+ * lose its supplementary ones. Its other use, the OS/2 character range, is
+ * overridden (os2-values.ts); the glyph name is always given, never derived from it.
+ */
 export function draftFontBytes(font: PreparedFont): Uint8Array {
   const glyphs = font.glyphs.map(
     (glyph) =>
       new opentype.Glyph({
         name: glyph.name,
-        ...(glyph.codePoint === undefined ? {} : { unicode: glyph.codePoint }),
+        ...(glyph.codePoints.length === 0 ? {} : { unicode: Math.max(...glyph.codePoints), unicodes: [...glyph.codePoints] }),
         advanceWidth: glyph.advanceWidth,
         leftSideBearing: glyph.leftSidebearing,
         path: outlineToPath(glyph.outline),

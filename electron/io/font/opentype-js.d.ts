@@ -27,6 +27,7 @@ declare module 'opentype.js/dist/opentype.js' {
   export interface GlyphOptions {
     name: string;
     unicode?: number;
+    unicodes?: number[];
     advanceWidth: number;
     leftSideBearing: number;
     path: Path;

@@ -36,7 +36,7 @@ export function os2Values(font: PreparedFont): Record<string, number | string> {
   const advances = font.glyphs.map((g) => g.advanceWidth).filter((w) => w > 0);
   // Average of the non-zero advance widths of all glyphs (OpenType spec, 'OS/2' xAvgCharWidth, version 3 and later).
   const xAvgCharWidth = advances.length > 0 ? Math.floor(advances.reduce((a, b) => a + b, 0) / advances.length + 0.5) : 0;
-  const codePoints = font.glyphs.map((g) => g.codePoint).filter((c): c is number => c !== undefined);
+  const codePoints = font.glyphs.flatMap((g) => g.codePoints);
   const [ulUnicodeRange1, ulUnicodeRange2, ulUnicodeRange3, ulUnicodeRange4] = unicodeRangeFields(codePoints);
   const strikeoutCentre = font.xHeight > 0 ? font.xHeight / 2 : font.ascender * STRIKEOUT_CENTRE_OF_ASCENDER;
   return {

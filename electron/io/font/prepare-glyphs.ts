@@ -1,6 +1,7 @@
 // The glyph list as the font will hold it, checked: .notdef first (our box unless
 // the source draws its own), a space (the source's, or one a quarter em wide), then
-// every source glyph in order, each with a valid unique name, at most one glyph per
+// every source glyph in order, each with a valid unique name and its list of
+// characters (the first its own, all mapped to it), at most one glyph per
 // character, whole-unit outlines placed at their sidebearing, whole-unit advance
 // widths, and every number within what a CFF font can store. Anything else is a
 // FontError naming the glyph and saying what to change.
@@ -15,8 +16,8 @@ import { notdefGlyph } from './notdef-glyph.ts';
 /** A glyph ready for the font: whole units throughout. */
 export interface PreparedGlyph {
   readonly name: string;
-  /** The character's code point, or undefined for an unencoded glyph. */
-  readonly codePoint: number | undefined;
+  /** The code points the cmap maps to the glyph, the primary (the one the name is from) first; empty for an unencoded glyph. */
+  readonly codePoints: readonly number[];
   readonly outline: GlyphOutline;
   readonly advanceWidth: number;
   /** Whole-unit box of the ink; undefined for a glyph without contours. */
@@ -43,27 +44,60 @@ const describeCharacter = (codePoint: number) => {
   return `U+${codePoint.toString(16).toUpperCase().padStart(CODE_POINT_HEX_DIGITS, '0')}${VISIBLE_CHARACTER.test(character) ? ` "${character}"` : ''}`;
 };
 
-function codePointOf(glyph: FontGlyph, index: number): number | undefined {
-  const { character } = glyph;
-  if (typeof character !== 'string') throw new FontError('bad-character', `Glyph ${index + 1}: its character must be a string (one character, or '' for an unencoded glyph).`);
-  if (character === '') return undefined;
+/** The code point of one character of a glyph; `what` says which ("is for", "also lists"). */
+function codePointOfCharacter(character: unknown, where: string, what: string, glyphName: string | undefined): number {
+  if (typeof character !== 'string' || character === '') {
+    throw new FontError('bad-character', `Glyph "${where}" ${what} ${JSON.stringify(character)}; each character must be a string of exactly one character.`, glyphName);
+  }
   const codePoints = [...character];
   const codePoint = character.codePointAt(0)!;
-  const where = glyph.name ?? `glyph ${index + 1}`;
   if (codePoints.length !== 1) {
-    throw new FontError('bad-character', `Glyph "${where}" is for "${character}", which is ${codePoints.length} characters; a glyph is for exactly one. Give a ligature or sequence glyph character '' and a name.`, glyph.name);
+    throw new FontError('bad-character', `Glyph "${where}" ${what} "${character}", which is ${codePoints.length} characters; a glyph is for exactly one. Give a ligature or sequence glyph character '' and a name.`, glyphName);
   }
   const reason = unencodableReason(codePoint);
   if (reason === 'surrogate') {
-    throw new FontError('bad-character', `Glyph "${where}" is for a lone UTF-16 surrogate (${describeCharacter(codePoint)}), which is half of a character. Use the whole character.`, glyph.name);
+    throw new FontError('bad-character', `Glyph "${where}" ${what} a lone UTF-16 surrogate (${describeCharacter(codePoint)}), which is half of a character. Use the whole character.`, glyphName);
   }
   if (reason === 'null') {
-    throw new FontError('bad-character', `Glyph "${where}" is for U+0000, which fonts reserve for the .null glyph. Give it another character or ''.`, glyph.name);
+    throw new FontError('bad-character', `Glyph "${where}" ${what} U+0000, which fonts reserve for the .null glyph. Give it another character or ''.`, glyphName);
   }
   if (reason === 'noncharacter') {
-    throw new FontError('bad-character', `Glyph "${where}" is for ${describeCharacter(codePoint)}, a Unicode noncharacter that text never contains. Give it a real character or ''.`, glyph.name);
+    throw new FontError('bad-character', `Glyph "${where}" ${what} ${describeCharacter(codePoint)}, a Unicode noncharacter that text never contains. Give it a real character or ''.`, glyphName);
   }
   return codePoint;
+}
+
+/**
+ * The glyph's code points, primary first: `character`, then the rest of
+ * `characters`, whose first entry must be `character` itself. Each appears once.
+ */
+function codePointsOf(glyph: FontGlyph, index: number): number[] {
+  const { character, characters } = glyph;
+  if (typeof character !== 'string') throw new FontError('bad-character', `Glyph ${index + 1}: its character must be a string (one character, or '' for an unencoded glyph).`);
+  const where = glyph.name ?? `glyph ${index + 1}`;
+  if (characters !== undefined && !Array.isArray(characters)) {
+    throw new FontError('bad-character', `Glyph "${where}": its characters must be a list of characters, its own character first.`, glyph.name);
+  }
+  const list = characters ?? (character === '' ? [] : [character]);
+  if (character === '') {
+    if (list.length > 0) {
+      throw new FontError('bad-character', `Glyph "${where}" has character '' but lists characters ${JSON.stringify(list)}; a glyph reached by characters needs the first of them as its character.`, glyph.name);
+    }
+    return [];
+  }
+  const primary = codePointOfCharacter(character, where, 'is for', glyph.name);
+  if (list[0] !== character) {
+    throw new FontError('bad-character', `Glyph "${where}" is for ${describeCharacter(primary)} but its list of characters starts with ${list.length === 0 ? 'nothing' : JSON.stringify(list[0])}; the list starts with the glyph's own character. Put it first, or leave the list out.`, glyph.name);
+  }
+  const codePoints = [primary];
+  for (const other of list.slice(1)) {
+    const codePoint = codePointOfCharacter(other, where, 'also lists', glyph.name);
+    if (codePoints.includes(codePoint)) {
+      throw new FontError('bad-character', `Glyph "${where}" lists ${describeCharacter(codePoint)} twice; list each character once.`, glyph.name);
+    }
+    codePoints.push(codePoint);
+  }
+  return codePoints;
 }
 
 function nameOf(glyph: FontGlyph, codePoint: number | undefined, index: number): string {
@@ -141,7 +175,7 @@ function prepareAdvance(advanceWidth: number, glyph: string): number {
   return rounded;
 }
 
-function placedGlyph(name: string, codePoint: number | undefined, source: { outline: GlyphOutline; advanceWidth: number; leftSidebearing?: number | undefined }): PreparedGlyph {
+function placedGlyph(name: string, codePoints: readonly number[], source: { outline: GlyphOutline; advanceWidth: number; leftSidebearing?: number | undefined }): PreparedGlyph {
   const advanceWidth = prepareAdvance(source.advanceWidth, name);
   let outline = prepareOutline(source.outline, name);
   let bounds = integerBounds(outline);
@@ -152,7 +186,7 @@ function placedGlyph(name: string, codePoint: number | undefined, source: { outl
     bounds = { ...bounds, xMin: bounds.xMin + shift, xMax: bounds.xMax + shift };
   }
   checkOutlineRange(outline, name);
-  return { name, codePoint, outline, advanceWidth, bounds, leftSidebearing: bounds?.xMin ?? 0 };
+  return { name, codePoints, outline, advanceWidth, bounds, leftSidebearing: bounds?.xMin ?? 0 };
 }
 
 export interface GlyphMetricsContext {
@@ -171,34 +205,39 @@ export function prepareGlyphs(glyphs: readonly FontGlyph[], metrics: GlyphMetric
   const prepared: PreparedGlyph[] = [];
 
   glyphs.forEach((glyph, index) => {
-    const codePoint = codePointOf(glyph, index);
-    const name = nameOf(glyph, codePoint, index);
+    const codePoints = codePointsOf(glyph, index);
+    const name = nameOf(glyph, codePoints[0], index);
     const previousIndex = byName.get(name);
     if (previousIndex !== undefined) {
       throw new FontError('duplicate-glyph-name', `Glyphs ${previousIndex + 1} and ${index + 1} are both named "${name}"; glyph names must be unique. Rename one (e.g. "${name}.alt").`, name);
     }
     byName.set(name, index);
-    if (codePoint !== undefined) {
+    for (const codePoint of codePoints) {
       const other = byCodePoint.get(codePoint);
       if (other !== undefined) {
-        throw new FontError('duplicate-character', `Glyphs "${other}" and "${name}" are both for ${describeCharacter(codePoint)}; a character can have only one glyph. Give one of them character '' (an alternate).`, name);
+        throw new FontError(
+          'duplicate-character',
+          `Glyphs "${other}" and "${name}" are both for ${describeCharacter(codePoint)}; a character can have only one glyph. Take it out of one glyph's characters (or give that glyph character '', an alternate).`,
+          name,
+        );
       }
       byCodePoint.set(codePoint, name);
     }
+    const primary = codePoints[0];
     if (name === NOTDEF_GLYPH_NAME) {
-      if (codePoint !== undefined) throw new FontError('bad-character', `The .notdef glyph is for ${describeCharacter(codePoint)}; .notdef is shown for missing characters and must have character ''.`, name);
-      notdef = placedGlyph(name, undefined, glyph);
+      if (primary !== undefined) throw new FontError('bad-character', `The .notdef glyph is for ${describeCharacter(primary)}; .notdef is shown for missing characters and must have character ''.`, name);
+      notdef = placedGlyph(name, [], glyph);
       return;
     }
-    if (codePoint === SPACE_CODE_POINT) hasSpace = true;
-    prepared.push(placedGlyph(name, codePoint, glyph));
+    if (codePoints.includes(SPACE_CODE_POINT)) hasSpace = true;
+    prepared.push(placedGlyph(name, codePoints, glyph));
   });
 
   if (!hasSpace && byName.has(SPACE_GLYPH_NAME)) {
     throw new FontError('bad-glyph-name', `Glyph "${SPACE_GLYPH_NAME}" is not for the space character; the writer adds the space under that name. Rename the glyph or give it character ' '.`, SPACE_GLYPH_NAME);
   }
   const box = notdefGlyph(metrics.unitsPerEm, metrics.capHeight, metrics.ascender);
-  const first = notdef ?? placedGlyph(NOTDEF_GLYPH_NAME, undefined, box);
-  const space = hasSpace ? [] : [placedGlyph(SPACE_GLYPH_NAME, SPACE_CODE_POINT, { outline: { contours: [] }, advanceWidth: Math.round(metrics.unitsPerEm * DEFAULT_SPACE_EM) })];
+  const first = notdef ?? placedGlyph(NOTDEF_GLYPH_NAME, [], box);
+  const space = hasSpace ? [] : [placedGlyph(SPACE_GLYPH_NAME, [SPACE_CODE_POINT], { outline: { contours: [] }, advanceWidth: Math.round(metrics.unitsPerEm * DEFAULT_SPACE_EM) })];
   return [first, ...space, ...prepared];
 }

@@ -3,11 +3,11 @@
 // either inside WOFF 1.0 — into Stemline's outline model, so a lettering artist can
 // compare their letters with a reference face, start from one, or check a font
 // Stemline wrote. Parsing is opentype.js 2.0.0's; the outlines become cubic contours
-// (path-to-outline.ts) with smooth joins recovered (smooth-joins.ts). The result is
+// with smooth joins recovered (path-to-outline.ts, smooth-joins.ts). The result is
 // a FontSource, so it can be written straight back out.
 import { basename } from 'node:path';
 import opentype, { type Font, type Glyph } from 'opentype.js/dist/opentype.js';
-import { reverseContour, type GlyphOutline } from '../../../core/outline/index.ts';
+import type { GlyphOutline } from '../../../core/outline/index.ts';
 import { InputError } from '../input-error.ts';
 import { isEncodable } from './code-points.ts';
 import { identifyFontContainer, type FontContainer } from './font-container.ts';
@@ -15,7 +15,6 @@ import { DEFAULT_WEIGHT_CLASS, type FontGlyph, type FontSource } from './font-mo
 import { glyphNameForCodePoint, isValidGlyphName, NOTDEF_GLYPH_NAME } from './glyph-names.ts';
 import { tightBounds } from './integer-outline.ts';
 import { pathToOutline } from './path-to-outline.ts';
-import { withSmoothJoins } from './smooth-joins.ts';
 
 /**
  * A glyph as read: a FontGlyph with its index, all its characters and a name that is
@@ -27,7 +26,12 @@ export interface ReadGlyph extends FontGlyph {
   /** Glyph index in the font (0 is .notdef). */
   readonly index: number;
   readonly name: string;
-  /** Every character the font's cmap maps to this glyph, lowest first; `character` is the first that a font can encode. */
+  /**
+   * Every character the font's cmap maps to this glyph, lowest first, so `character`
+   * (the lowest) is the primary one. Code points no glyph of ours can be for (U+0000,
+   * surrogates, noncharacters: code-points.ts) are left out, and so is anything
+   * mapped to glyph 0, which is shown for missing characters and is never mapped.
+   */
   readonly characters: readonly string[];
 }
 
@@ -73,8 +77,7 @@ function outlineOf(glyph: Glyph, fileName: string, truetype: boolean): GlyphOutl
     const reason = error instanceof Error ? error.message : String(error);
     throw new InputError('font-unreadable', fileName, `${fileName}: the outline of glyph ${glyph.index} is damaged (${reason}). Export the font again.`);
   }
-  const contours = pathToOutline(commands).contours.map(withSmoothJoins);
-  return { contours: truetype ? contours.map(reverseContour) : contours };
+  return pathToOutline(commands, truetype ? 'reversed' : 'as-drawn');
 }
 
 /** The top of the ink of the glyph for `character` (0 without one), for fonts that do not state x-height or cap height. */
@@ -101,8 +104,8 @@ export function readFont(bytes: Uint8Array, fileName: string): ReadFont {
   for (let index = 0; index < font.glyphs.length; index++) {
     const glyph = font.glyphs.get(index);
     if (glyph === undefined) continue;
-    const codePoints = [...glyph.unicodes].sort((a, b) => a - b);
-    const primary = index === 0 ? undefined : codePoints.find(isEncodable);
+    const codePoints = index === 0 ? [] : glyph.unicodes.filter(isEncodable).sort((a, b) => a - b);
+    const primary = codePoints[0];
     const fontName = index === 0 ? NOTDEF_GLYPH_NAME : glyph.name;
     let name = fontName !== null && isValidGlyphName(fontName) && !usedNames.has(fontName) ? fontName : primary !== undefined ? glyphNameForCodePoint(primary) : '';
     if (name === '' || usedNames.has(name)) name = `glyph${String(index).padStart(GLYPH_INDEX_DIGITS, '0')}`;

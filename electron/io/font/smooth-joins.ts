@@ -1,9 +1,9 @@
 // Marks the on-curve points where an outline read from a font joins smoothly: the
 // incoming and outgoing directions are the same (collinear handles on opposite
 // sides), so the editor keeps the join smooth when a handle is dragged. Fonts do not
-// store this; it is recovered from the geometry.
-import { cross, dot, sub, type Point, type Vec } from '../../../core/geometry/index.ts';
-import { contourSegments, type OutlineContour, type OutlineSegment } from '../../../core/outline/index.ts';
+// store this; it is recovered from the geometry. Works on the point list itself
+// (no segment objects), since reading a large font asks it of every point.
+import type { OutlineContour, OutlinePoint, PointKind } from '../../../core/outline/index.ts';
 
 /**
  * Largest bend, in degrees, still taken as a smooth join (chosen here): whole-unit
@@ -14,37 +14,61 @@ import { contourSegments, type OutlineContour, type OutlineSegment } from '../..
 export const SMOOTH_JOIN_TOLERANCE_DEGREES = 2;
 const SMOOTH_JOIN_TOLERANCE = (SMOOTH_JOIN_TOLERANCE_DEGREES * Math.PI) / 180;
 
-const controlPointsOf = (s: OutlineSegment): Point[] => (s.kind === 'line' ? [s.p0, s.p1] : [s.p0, s.p1, s.p2, s.p3]);
+/** Off-curve points of a cubic segment: the CFF model has none (a line) or two. */
+const CUBIC_HANDLES = 2;
 
-/** Direction the segment leaves its start in: toward its first control point that differs from the start. */
-function outgoingDirection(segment: OutlineSegment): Vec | undefined {
-  const [start, ...rest] = controlPointsOf(segment);
-  const next = rest.find((p) => p.x !== start!.x || p.y !== start!.y);
-  return next === undefined ? undefined : sub(next, start!);
+/** What the test needs of a point. */
+interface JoinPoint {
+  readonly x: number;
+  readonly y: number;
+  readonly kind: PointKind;
 }
 
-/** Direction the segment arrives at its end in: from its last control point that differs from the end. */
-function incomingDirection(segment: OutlineSegment): Vec | undefined {
-  const points = controlPointsOf(segment);
-  const end = points[points.length - 1]!;
-  const previous = points.slice(0, -1).reverse().find((p) => p.x !== end.x || p.y !== end.y);
-  return previous === undefined ? undefined : sub(end, previous);
-}
-
-function isSmoothJoin(incoming: Vec | undefined, outgoing: Vec | undefined): boolean {
-  if (incoming === undefined || outgoing === undefined) return false;
-  const d = dot(incoming, outgoing);
-  if (d <= 0) return false;
-  return Math.atan2(Math.abs(cross(incoming, outgoing)), d) <= SMOOTH_JOIN_TOLERANCE;
+/**
+ * Whether the on-curve point `points[k]` of a closed contour (lines and cubics, the
+ * outline model's pattern) joins smoothly. The incoming direction comes from the
+ * last control point of the segment ending there that differs from it, the outgoing
+ * one goes to the first control point of the segment starting there that differs
+ * from it; the join is smooth when they point the same way within
+ * SMOOTH_JOIN_TOLERANCE_DEGREES. A join with a zero-length side is not smooth.
+ */
+export function isSmoothJoinAt(points: readonly JoinPoint[], k: number): boolean {
+  const n = points.length;
+  const at = points[k]!;
+  // Outgoing: toward the first of the next segment's control points (one for a line, three for a cubic) that differs from `at`.
+  let outX = 0;
+  let outY = 0;
+  const outCount = points[(k + 1) % n]!.kind === 'off' ? CUBIC_HANDLES + 1 : 1;
+  for (let step = 1; step <= outCount; step++) {
+    const p = points[(k + step) % n]!;
+    if (p.x !== at.x || p.y !== at.y) {
+      outX = p.x - at.x;
+      outY = p.y - at.y;
+      break;
+    }
+  }
+  if (outX === 0 && outY === 0) return false;
+  // Incoming: from the last of the previous segment's control points before `at` that differs from it.
+  let inX = 0;
+  let inY = 0;
+  const inCount = points[(k - 1 + n) % n]!.kind === 'off' ? CUBIC_HANDLES + 1 : 1;
+  for (let step = 1; step <= inCount; step++) {
+    const p = points[(k - step + n * (CUBIC_HANDLES + 1)) % n]!;
+    if (p.x !== at.x || p.y !== at.y) {
+      inX = at.x - p.x;
+      inY = at.y - p.y;
+      break;
+    }
+  }
+  if (inX === 0 && inY === 0) return false;
+  const dot = inX * outX + inY * outY;
+  if (dot <= 0) return false;
+  return Math.atan2(Math.abs(inX * outY - inY * outX), dot) <= SMOOTH_JOIN_TOLERANCE;
 }
 
 /** The contour with each on-curve point's smooth flag set from its geometry (positions unchanged). */
 export function withSmoothJoins(contour: OutlineContour): OutlineContour {
-  const segments = contourSegments(contour);
-  if (segments.length === 0) return contour;
-  const smooth = segments.map((segment, i) => isSmoothJoin(incomingDirection(segments[(i - 1 + segments.length) % segments.length]!), outgoingDirection(segment)));
-  let onIndex = 0;
-  return {
-    points: contour.points.map((p) => (p.kind === 'on' ? { ...p, smooth: smooth[onIndex++] ?? false } : p)),
-  };
+  const { points } = contour;
+  if (points.length < 2) return contour;
+  return { points: points.map((p, k): OutlinePoint => (p.kind === 'on' ? { ...p, smooth: isSmoothJoinAt(points, k) } : p)) };
 }

@@ -1,6 +1,7 @@
 // Reading and writing project files. Reading validates everything (and says which
-// field is wrong); writing is atomic, so a crash or power cut mid-save leaves the
-// previous file intact; and autosave writes a recovery file beside the project that
+// field is wrong), opening older formats through their migration; writing is
+// atomic, so a crash or power cut mid-save leaves the previous file intact, and can
+// embed the scans; and autosave writes a recovery file beside the project that
 // opening offers when it is newer than the project.
 import * as v from 'valibot';
 import { readFile, stat, unlink } from 'node:fs/promises';
@@ -8,7 +9,9 @@ import { basename, dirname, join } from 'node:path';
 import { writeFileAtomic } from '../atomic-write.ts';
 import { APP_NAME, APP_VERSION } from '../../app-identity.ts';
 import { CURRENT_FORMAT_VERSION, PROJECT_FORMAT_NAME, projectSchema, type ProjectData } from './project-schema.ts';
-import { ProjectError } from './project-error.ts';
+import { invalidFieldError, ProjectError } from './project-error.ts';
+import { FORMAT_1, migrateFormat1 } from './migrate-format-1.ts';
+import { withEmbeddedScans } from './project-scans.ts';
 
 /**
  * Largest project file read: 512 MiB. Projects with embedded 600-dpi scans reach tens
@@ -34,11 +37,11 @@ export function parseProject(text: string, name: string): ProjectData {
   if (version > CURRENT_FORMAT_VERSION) {
     throw new ProjectError('project-too-new', name, `${name} was saved by a newer ${APP_NAME} (project format ${version}); this version (${APP_VERSION}) reads up to format ${CURRENT_FORMAT_VERSION}. Update ${APP_NAME} to open it; the file has not been changed.`);
   }
-  const result = v.safeParse(projectSchema, raw);
+  const current = version === FORMAT_1 ? migrateFormat1(raw as Record<string, unknown>, name) : raw;
+  const result = v.safeParse(projectSchema, current);
   if (!result.success) {
     const issue = result.issues[0];
-    const where = issue ? (v.getDotPath(issue) ?? 'the top level') : 'the top level';
-    throw new ProjectError('project-invalid', name, `${name}: ${where} is wrong: ${issue?.message ?? 'invalid value'}. Fix that field or open the recovery copy.`);
+    throw invalidFieldError(name, issue ? (v.getDotPath(issue) ?? 'the top level') : 'the top level', issue?.message ?? 'invalid value');
   }
   return result.output;
 }
@@ -64,9 +67,24 @@ export function serializeProject(project: ProjectData): string {
   return `${JSON.stringify({ ...project, savedBy: `${APP_NAME} ${APP_VERSION}` }, null, 2)}\n`;
 }
 
-/** Saves atomically to `path` and removes the recovery file it supersedes. */
-export async function saveProject(path: string, project: ProjectData): Promise<void> {
-  await writeFileAtomic(path, serializeProject(project));
+export interface SaveOptions {
+  /**
+   * Embed every scan: its file's bytes go into the project (base64, with their
+   * SHA-256), so the project opens with its scans wherever it is moved. A scan
+   * whose file is missing keeps the copy it has. Default false: the project keeps
+   * whatever copies it already holds.
+   */
+  readonly embedScans?: boolean;
+}
+
+/**
+ * Saves atomically to `path` and removes the recovery file it supersedes. Scan
+ * paths are relative to the folder of `path`. Throws ProjectError when a scan to
+ * embed cannot be read and has no copy.
+ */
+export async function saveProject(path: string, project: ProjectData, options: SaveOptions = {}): Promise<void> {
+  const saved = options.embedScans === true ? await withEmbeddedScans(path, project) : project;
+  await writeFileAtomic(path, serializeProject(saved));
   await unlink(recoveryPathFor(path)).catch(() => undefined);
 }
 

@@ -1,10 +1,12 @@
 // An existing font as a new Stemline project: its names, metrics and every glyph's
-// outline and spacing, ready to clean up, extend with scanned letters, and write out
-// again. Unencoded glyphs come along under their names.
+// characters (all the cmap maps to it, the primary first), outline and spacing,
+// ready to clean up, extend with scanned letters, and write out again. Unencoded
+// glyphs come along under their names.
 import { outlineToJson } from '../../../core/outline/index.ts';
 import type { ReadFont } from '../font/read-font.ts';
 import { newProject } from './new-project.ts';
 import type { ProjectData } from './project-schema.ts';
+import { unicodeHexOf } from './project-unicodes.ts';
 
 export function projectFromFont(font: ReadFont): ProjectData {
   const base = newProject(font.familyName);
@@ -23,7 +25,7 @@ export function projectFromFont(font: ReadFont): ProjectData {
     glyphs: font.glyphs
       .filter((glyph) => glyph.index !== 0)
       .map((glyph) => ({
-        character: glyph.character,
+        unicodes: glyph.characters.map(unicodeHexOf),
         name: glyph.name,
         advanceWidth: glyph.advanceWidth,
         leftSidebearing: glyph.leftSidebearing,

@@ -1,0 +1,190 @@
+// Grid rounding: what a type designer would notice if it broke — a smooth join that
+// shows a kink once on integer coordinates, an outline pushed off the drawing by
+// rounding, or a curvature comb whose steps come back after fairing.
+
+import { describe, expect, it } from 'vitest';
+import { prepareChain, type BoundaryChain } from '../../core/fit/boundary-chain.ts';
+import { fairSmoothJoins, G2_RELATIVE_TOLERANCE, joinCurvatures } from '../../core/fit/fairing.ts';
+import { fitContour } from '../../core/fit/fit-contour.ts';
+import type { FitNode, FitSpan, FittedContour } from '../../core/fit/fitted-contour.ts';
+import { COLLINEAR_DEGREES, roundToGrid } from '../../core/fit/grid-rounding.ts';
+import { KINK_MIN_DEGREES, turnAtJoin } from '../../core/fit/quality-report.ts';
+import { fitSmoothContour } from '../../core/fit/smooth-fit.ts';
+import { cubic, evaluate, type Point } from '../../core/geometry/index.ts';
+import { ellipseChain, polarChain, sCurveBandChain, superellipseRadius } from './synthetic-chains.ts';
+
+/** Handle length of the four-arc cubic circle, as a share of the radius: 4(√2 − 1)/3 (Riškus 2006, and the classic κ ≈ 0.5523). */
+const ARC_HANDLE = (4 * (Math.SQRT2 - 1)) / 3;
+
+/**
+ * The four-arc cubic approximation of an ellipse with semi-axes a, b, rotated by
+ * `rotation` about an off-grid centre, as a fitted contour, and a chain sampled along
+ * its own cubics (so the unrounded contour has no error at all). Rotated by anything
+ * but a multiple of 90°, every join is a sloped smooth join whose exact handles have
+ * irrational directions and lengths.
+ */
+function rotatedEllipse(a: number, b: number, rotation: number): { chain: BoundaryChain; contour: FittedContour } {
+  const c = { x: 400 + Math.SQRT2 / 7, y: 300 + Math.PI / 11 };
+  const cos = Math.cos(rotation);
+  const sin = Math.sin(rotation);
+  const place = (x: number, y: number): Point => ({ x: c.x + x * cos - y * sin, y: c.y + x * sin + y * cos });
+  const direction = (x: number, y: number): Point => ({ x: x * cos - y * sin, y: x * sin + y * cos });
+  // Vertices counter-clockwise from (a, 0); the tangent there is the next vertex's axis direction.
+  const vertices = [[a, 0, 0, 1, b], [0, b, -1, 0, a], [-a, 0, 0, -1, b], [0, -b, 1, 0, a]] as const;
+  const points = vertices.map(([x, y]) => place(x, y));
+  const tangents = vertices.map(([, , tx, ty]) => direction(tx, ty));
+  const handles = vertices.map(([, , , , length]) => ARC_HANDLE * length);
+  const segments = points.map((p, k) => {
+    const q = points[(k + 1) % 4]!;
+    const t0 = tangents[k]!;
+    const t1 = tangents[(k + 1) % 4]!;
+    return cubic(p, { x: p.x + t0.x * handles[k]!, y: p.y + t0.y * handles[k]! }, { x: q.x - t1.x * handles[(k + 1) % 4]!, y: q.y - t1.y * handles[(k + 1) % 4]! }, q);
+  });
+  const samples: Point[] = [];
+  const starts: number[] = [];
+  for (const s of segments) {
+    starts.push(samples.length);
+    const steps = Math.ceil(Math.hypot(s.p3.x - s.p0.x, s.p3.y - s.p0.y) * 1.2);
+    for (let k = 0; k < steps; k++) samples.push(evaluate(s, k / steps));
+  }
+  const { chain } = prepareChain(samples);
+  expect(chain.count).toBe(samples.length);
+  const nodes: FitNode[] = points.map((point, k) => ({ point, smooth: true, tangentIn: tangents[k]!, tangentOut: tangents[k]!, extremum: null, corner: null, index: starts[k]!, pinned: false }));
+  const spans: FitSpan[] = segments.map((segment, k) => ({ segment, first: starts[k]!, last: k < 3 ? starts[k + 1]! : samples.length, maxError: 0, carrier: null }));
+  return { chain, contour: { nodes, spans } };
+}
+
+/** The control points next to each on-curve point of a contour: (handle in, point, handle out). */
+function triples(contour: FittedContour): [Point, Point, Point][] {
+  const n = contour.nodes.length;
+  return contour.nodes.map((node, i) => {
+    const before = contour.spans[(i - 1 + n) % n]!.segment;
+    const after = contour.spans[i]!.segment;
+    return [before.kind === 'cubic' ? before.p2 : before.p0, node.point, after.kind === 'cubic' ? after.p1 : after.p1];
+  });
+}
+
+function turnAt(contour: FittedContour, i: number): number {
+  const n = contour.nodes.length;
+  return turnAtJoin(contour.spans[(i - 1 + n) % n]!.segment, contour.spans[i]!.segment);
+}
+
+const median = (values: readonly number[]): number => values.slice().sort((x, y) => x - y)[values.length >> 1]!;
+
+describe('rounding sloped smooth joins with irrational handles', () => {
+  // 15°, 22.5° and 7.5° are 45°·1/3, 45°·1/2 and 45°·1/6; atan(1/√2) has no rational tangent at all.
+  const rotations = [Math.PI / 12, Math.PI / 8, Math.PI / 24, Math.atan(Math.SQRT1_2), (5 * Math.PI) / 18];
+  const shapes = rotations.flatMap((rotation) => [rotatedEllipse(250, 120, rotation), rotatedEllipse(90 * Math.SQRT2, 40 * Math.E, rotation), rotatedEllipse(300, 30, rotation)]);
+
+  it(`keeps every sloped join collinear within ${COLLINEAR_DEGREES}°, far below a visible kink`, () => {
+    for (const { chain, contour } of shapes) {
+      const rounded = roundToGrid(chain, contour, 1, 1.5);
+      rounded.nodes.forEach((_, i) => {
+        // COLLINEAR_DEGREES (0.05°) is a sixth of the 0.3° near-miss kink threshold.
+        expect(turnAt(rounded, i)).toBeLessThanOrEqual(COLLINEAR_DEGREES);
+        expect(COLLINEAR_DEGREES).toBeLessThan(KINK_MIN_DEGREES);
+      });
+    }
+  });
+
+  it('moves no on-curve point by more than half a unit in either axis, and stays within the tolerance', () => {
+    for (const { chain, contour } of shapes) {
+      // The unrounded contour lies on its chain (margin = the whole tolerance of 1 unit ≥ half a unit).
+      const rounded = roundToGrid(chain, contour, 1, 1);
+      rounded.nodes.forEach((node, i) => {
+        expect(Math.abs(node.point.x - contour.nodes[i]!.point.x)).toBeLessThanOrEqual(0.5);
+        expect(Math.abs(node.point.y - contour.nodes[i]!.point.y)).toBeLessThanOrEqual(0.5);
+      });
+      for (const span of rounded.spans) expect(span.maxError).toBeLessThanOrEqual(1);
+    }
+  });
+
+  it('puts every coordinate on the grid, keeps axis-aligned joins exactly collinear, and leaves its input alone', () => {
+    for (const [rotation, grid] of [[0, 1], [Math.PI / 12, 1], [0, 2], [Math.PI / 8, 0.5]] as const) {
+      const { chain, contour } = rotatedEllipse(250, 120, rotation);
+      const snapshot = JSON.stringify(contour);
+      const rounded = roundToGrid(chain, contour, grid, 1.5);
+      expect(JSON.stringify(contour)).toBe(snapshot);
+      for (const [hIn, p, hOut] of triples(rounded)) {
+        for (const q of [hIn, p, hOut]) {
+          expect(Number.isInteger(q.x / grid)).toBe(true);
+          expect(Number.isInteger(q.y / grid)).toBe(true);
+        }
+        if (rotation === 0) {
+          // Unrotated, every join is an extremum: both handles share the point's x or its y exactly.
+          expect((hIn.x === p.x && hOut.x === p.x) || (hIn.y === p.y && hOut.y === p.y)).toBe(true);
+        }
+      }
+    }
+  });
+});
+
+describe('rounding the smooth-fit shapes', () => {
+  // The noisy brush-like shapes of smooth-fit.test.ts, fitted as there (tolerance 1.15,
+  // the default 1.5 less the rounding reserve) and rounded against the full 1.5.
+  const shapes = [
+    ['a five-lobed wobble', polarChain({ x: 400, y: 400 }, (theta) => 300 + 30 * Math.sin(5 * theta), 0.3, 7)],
+    ['a superellipse (exponent 2.5)', polarChain({ x: 500, y: 400 }, superellipseRadius(300, 220, 2.5), 0.3, 5)],
+  ] as const;
+  for (const [name, points] of shapes) {
+    const { chain } = prepareChain(points);
+    const fitted = fitSmoothContour(chain, { tolerance: 1.15, pixel: chain.medianStep });
+    const rounded = roundToGrid(chain, fitted, 1, 1.5);
+
+    it(`keeps every span of ${name} within the tolerance where the fit left half a unit to spare`, () => {
+      // Measured before this search: two spans at 1.75 and 2.07 units, pushed out by
+      // on-curve points moved 1.5 units to reach an exactly collinear triple.
+      let checked = 0;
+      rounded.spans.forEach((span, i) => {
+        if (fitted.spans[i]!.maxError > 1.5 - 0.5) return;
+        checked++;
+        expect(span.maxError, `span ${i}`).toBeLessThanOrEqual(1.5);
+      });
+      expect(checked).toBeGreaterThan(fitted.spans.length / 2);
+    });
+
+    it(`keeps the on-curve points of ${name} within half a unit and its sloped joins collinear`, () => {
+      rounded.nodes.forEach((node, i) => {
+        expect(Math.abs(node.point.x - fitted.nodes[i]!.point.x)).toBeLessThanOrEqual(0.5);
+        expect(Math.abs(node.point.y - fitted.nodes[i]!.point.y)).toBeLessThanOrEqual(0.5);
+        expect(turnAt(rounded, i), `join ${i}`).toBeLessThanOrEqual(COLLINEAR_DEGREES);
+      });
+    });
+  }
+});
+
+describe('rounding faired outlines', () => {
+  // The fairing tests' shapes (fairing.test.ts), fitted at the default tolerance and
+  // faired to G2 at the fitting tolerance, plus the smooth-fit wobble.
+  const cases = [
+    ellipseChain({ x: 400, y: 300 }, 250, 120, 0, 0.15, 2),
+    ellipseChain({ x: 400, y: 300 }, 250, 120, Math.PI / 6, 0.15, 2),
+    ellipseChain({ x: 400, y: 300 }, 300, 180, 0.4, 0.3, 5),
+    sCurveBandChain(400, 120, 80, 0.15, 3),
+  ].map((points) => {
+    const { chain } = prepareChain(points);
+    return { chain, faired: fairSmoothJoins(chain, fitContour(points, { tolerance: 1.5 }).fitted, 1.15) };
+  });
+  const wobble = prepareChain(polarChain({ x: 400, y: 400 }, (theta) => 300 + 30 * Math.sin(5 * theta), 0.3, 7)).chain;
+  cases.push({ chain: wobble, faired: fairSmoothJoins(wobble, fitSmoothContour(wobble, { tolerance: 1.15, pixel: wobble.medianStep }), 1.15) });
+
+  it('keeps most of the curvature continuity fairing made (median step at G2 joins ≤ 5 %)', () => {
+    const steps: number[] = [];
+    for (const { chain, faired } of cases) {
+      const before = joinCurvatures(faired);
+      const after = joinCurvatures(roundToGrid(chain, faired, 1, 1.5));
+      const n = faired.nodes.length;
+      before.forEach((join, i) => {
+        const cubics = faired.spans[(i - 1 + n) % n]!.segment.kind === 'cubic' && faired.spans[i]!.segment.kind === 'cubic';
+        if (join.smooth && cubics && join.relativeJump <= G2_RELATIVE_TOLERANCE) steps.push(after[i]!.relativeJump);
+      });
+    }
+    expect(steps.length).toBeGreaterThanOrEqual(20);
+    // Measured: median 4.2 %, worst 56 % over 22 G2 joins; the rounding before this
+    // search, which chose among exactly collinear triples by distance alone: 7.0 % and
+    // 130 %. A 5 % step is a tooth or two of an editor's comb at the scale fairing.ts
+    // judges G2 by (G2_RELATIVE_TOLERANCE, 2 %).
+    expect(median(steps)).toBeLessThanOrEqual(0.05);
+    expect(Math.max(...steps)).toBeLessThanOrEqual(0.75);
+  });
+});
