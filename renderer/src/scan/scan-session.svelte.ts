@@ -3,9 +3,9 @@
 // call its methods; nothing else changes it.
 import { decodeScanInPage } from './decode-in-page.ts';
 import { TraceClient } from './trace-client.ts';
-import type { TracedSheet } from './trace-protocol.ts';
+import type { FittedSheet, TracedSheet } from './trace-protocol.ts';
 
-export type ScanPhase = 'idle' | 'decoding' | 'tracing' | 'traced';
+export type ScanPhase = 'idle' | 'decoding' | 'tracing' | 'traced' | 'fitting';
 
 /** Human names of the tracing steps, shown beside the progress bar. */
 const STAGE_LABELS: Record<string, string> = {
@@ -14,6 +14,7 @@ const STAGE_LABELS: Record<string, string> = {
   boundaries: 'Tracing boundaries',
   nesting: 'Nesting contours',
   segmentation: 'Finding letters',
+  fitting: 'Fitting outlines',
   done: 'Done',
 };
 
@@ -25,6 +26,8 @@ export class ScanSession {
   stageLabel = $state('');
   sheet = $state<TracedSheet | null>(null);
   problem = $state<string | null>(null);
+  /** The assigned letters fitted into outlines, or null until "Fit" has run. */
+  fitted = $state.raw<FittedSheet | null>(null);
   private client: TraceClient | null = null;
 
   /** Decodes and traces `file`; on failure keeps the previous sheet and shows why. */
@@ -46,6 +49,7 @@ export class ScanSession {
       this.imageUrl = URL.createObjectURL(file);
       this.fileName = file.name;
       this.sheet = sheet;
+      this.fitted = null;
       this.phase = 'traced';
     } catch (error) {
       this.problem = error instanceof Error ? error.message : String(error);
@@ -60,6 +64,30 @@ export class ScanSession {
       this.sheet = await this.client.assign(characters);
     } catch (error) {
       this.problem = error instanceof Error ? error.message : String(error);
+    }
+  }
+
+  /**
+   * Fits the assigned letters in the worker, with progress; on success `fitted` holds
+   * the outlines. On failure the sheet stays and the problem is shown.
+   */
+  async fit(): Promise<boolean> {
+    if (!this.client || !this.sheet) return false;
+    this.problem = null;
+    this.phase = 'fitting';
+    this.stageLabel = STAGE_LABELS.fitting ?? 'Fitting';
+    this.progress = 0;
+    try {
+      this.fitted = await this.client.fit((fraction, stage) => {
+        this.progress = fraction;
+        this.stageLabel = STAGE_LABELS[stage] ?? stage;
+      });
+      return true;
+    } catch (error) {
+      this.problem = error instanceof Error ? error.message : String(error);
+      return false;
+    } finally {
+      this.phase = 'traced';
     }
   }
 }

@@ -1,10 +1,13 @@
 // The page's handle on the tracing worker: one promise per request, progress through
 // a callback. Requests are answered in order; a new trace supersedes nothing, it
 // simply queues behind the one running.
-import type { TraceReply, TraceRequest, TraceSettings, TracedSheet } from './trace-protocol.ts';
+import type { FittedSheet, TraceReply, TraceRequest, TraceSettings, TracedSheet } from './trace-protocol.ts';
 import type { TraceStage } from '../../../core/raster/index.ts';
 
-type Pending = { resolve: (sheet: TracedSheet) => void; reject: (error: Error) => void; onProgress?: (fraction: number, stage: TraceStage) => void };
+/** Progress callback: share done (0–1) and the step running. */
+export type ProgressCallback = (fraction: number, stage: TraceStage | 'fitting') => void;
+
+type Pending = { resolve: (result: TracedSheet | FittedSheet) => void; reject: (error: Error) => void; onProgress?: ProgressCallback };
 
 export class TraceClient {
   private readonly worker = new Worker(new URL('./trace-worker.ts', import.meta.url), { type: 'module' });
@@ -16,20 +19,25 @@ export class TraceClient {
   }
 
   /** Traces a decoded scan; the raster's pixels are handed to the worker. */
-  trace(raster: { width: number; height: number; data: Uint8Array; dpi?: number }, settings: TraceSettings, onProgress?: Pending['onProgress']): Promise<TracedSheet> {
-    return this.send({ type: 'trace', id: this.nextId++, raster, settings }, onProgress, [raster.data.buffer as ArrayBuffer]);
+  trace(raster: { width: number; height: number; data: Uint8Array; dpi?: number }, settings: TraceSettings, onProgress?: ProgressCallback): Promise<TracedSheet> {
+    return this.send({ type: 'trace', id: this.nextId++, raster, settings }, onProgress, [raster.data.buffer as ArrayBuffer]) as Promise<TracedSheet>;
   }
 
   /** Assigns characters, in reading order, to the letters of the last traced sheet. */
   assign(characters: string): Promise<TracedSheet> {
-    return this.send({ type: 'assign', id: this.nextId++, characters });
+    return this.send({ type: 'assign', id: this.nextId++, characters }) as Promise<TracedSheet>;
+  }
+
+  /** Fits the assigned letters of the last traced sheet into outlines in font units. */
+  fit(onProgress?: ProgressCallback): Promise<FittedSheet> {
+    return this.send({ type: 'fit', id: this.nextId++ }, onProgress) as Promise<FittedSheet>;
   }
 
   dispose(): void {
     this.worker.terminate();
   }
 
-  private send(request: TraceRequest, onProgress?: Pending['onProgress'], transfer: Transferable[] = []): Promise<TracedSheet> {
+  private send(request: TraceRequest, onProgress?: ProgressCallback, transfer: Transferable[] = []): Promise<TracedSheet | FittedSheet> {
     return new Promise((resolve, reject) => {
       this.pending.set(request.id, onProgress ? { resolve, reject, onProgress } : { resolve, reject });
       this.worker.postMessage(request, transfer);
@@ -44,7 +52,7 @@ export class TraceClient {
       return;
     }
     this.pending.delete(message.id);
-    if (message.type === 'traced') waiting.resolve(message.result);
-    else waiting.reject(new Error(message.message));
+    if (message.type === 'failed') waiting.reject(new Error(message.message));
+    else waiting.resolve(message.result);
   }
 }

@@ -1,9 +1,11 @@
-// The tracing worker: runs core's traceScan on a decoded scan and keeps the
-// contours, so that reassigning characters re-runs only the cheap segmentation.
-import { RasterError, segmentSheet, traceScan, type Contour } from '../../../core/raster/index.ts';
-import type { TraceReply, TraceRequest, TracedSheet } from './trace-protocol.ts';
+// The tracing worker: runs core's traceScan on a decoded scan and keeps the result,
+// so that reassigning characters re-runs only the cheap segmentation and fitting the
+// assigned letters (core/pipeline fitTracedSheet) needs no second trace.
+import { RasterError, segmentSheet, traceScan, type TraceScanResult } from '../../../core/raster/index.ts';
+import { fitTracedSheet } from '../../../core/pipeline/index.ts';
+import type { FittedSheet, TraceReply, TraceRequest, TracedSheet } from './trace-protocol.ts';
 
-let lastContours: Contour[] = [];
+let lastScan: TraceScanResult | null = null;
 let lastResult: TracedSheet | null = null;
 
 function reply(message: TraceReply): void {
@@ -15,6 +17,37 @@ function describe(error: unknown): string {
   return `Tracing failed unexpectedly (${error instanceof Error ? error.message : String(error)}). Please report this with the scan.`;
 }
 
+/** Fits the assigned letters of the last traced sheet; unassigned letters are left out. */
+function fitAssigned(scan: TraceScanResult, id: number): FittedSheet {
+  const assigned = { ...scan.sheet, letters: scan.sheet.letters.filter((l) => l.character !== null) };
+  if (assigned.letters.length === 0) throw new Error('No letter has a character yet: type the characters on the sheet and assign them first.');
+  const fitted = fitTracedSheet({ ...scan, sheet: assigned }, {
+    onProgress: (fraction, stage) => reply({ type: 'progress', id, fraction, stage }),
+  });
+  const units = (height: { pixels: number } | null) => (height ? height.pixels * fitted.unitsPerPixel : null);
+  return {
+    letters: fitted.letters.map((letter) => ({
+      index: letter.index,
+      character: letter.character ?? '',
+      box: letter.box,
+      frame: letter.frame,
+      outline: letter.outline,
+      warnings: letter.report?.warnings ?? [],
+      maxDeviation: letter.report?.maxDeviation ?? null,
+      problem: letter.problem,
+    })),
+    metrics: {
+      capHeight: (fitted.metrics.capHeight?.pixels ?? fitted.metrics.letterHeightPixels) * fitted.unitsPerPixel,
+      xHeight: units(fitted.metrics.xHeight),
+      ascender: units(fitted.metrics.ascender),
+      descender: units(fitted.metrics.descender),
+    },
+    unitsPerPixel: fitted.unitsPerPixel,
+    tolerance: fitted.tolerance,
+    notes: fitted.notes,
+  };
+}
+
 onmessage = (event: MessageEvent<TraceRequest>) => {
   const request = event.data;
   try {
@@ -23,7 +56,7 @@ onmessage = (event: MessageEvent<TraceRequest>) => {
         ...request.settings,
         onProgress: (fraction, stage) => reply({ type: 'progress', id: request.id, fraction, stage }),
       });
-      lastContours = result.contours;
+      lastScan = result;
       lastResult = {
         width: request.raster.width,
         height: request.raster.height,
@@ -37,8 +70,13 @@ onmessage = (event: MessageEvent<TraceRequest>) => {
       reply({ type: 'traced', id: request.id, result: lastResult });
       return;
     }
-    if (!lastResult) throw new Error('no sheet has been traced yet');
-    const sheet = segmentSheet(lastContours, { characters: request.characters });
+    if (!lastResult || !lastScan) throw new Error('no sheet has been traced yet');
+    if (request.type === 'fit') {
+      reply({ type: 'fitted', id: request.id, result: fitAssigned(lastScan, request.id) });
+      return;
+    }
+    const sheet = segmentSheet(lastScan.contours, { characters: request.characters });
+    lastScan = { ...lastScan, sheet };
     lastResult = { ...lastResult, sheet };
     reply({ type: 'traced', id: request.id, result: lastResult });
   } catch (error) {

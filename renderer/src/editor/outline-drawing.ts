@@ -1,0 +1,77 @@
+/**
+ * What the canvas draws for an outline, computed in screen pixels: the outline as SVG
+ * path data, the on-curve points (corners and smooth points told apart), the handles
+ * and the lines tying each handle to its on-curve point.
+ */
+import type { Point } from '../../../core/geometry/vector.ts';
+import { contourSegments, type GlyphOutline, type OutlineContour } from '../../../core/outline/index.ts';
+import { toScreen, type ViewTransform } from './view-transform.ts';
+
+function fmt(n: number): string {
+  return (Math.round(n * 100) / 100).toString();
+}
+
+/** SVG path data of the whole outline at this view (M/L/C/Z, absolute screen pixels). */
+export function outlinePathData(outline: GlyphOutline, view: ViewTransform): string {
+  return outline.contours
+    .map((contour) => {
+      const segments = contourSegments(contour);
+      const first = segments[0];
+      if (!first) return '';
+      const s = (p: Point) => {
+        const q = toScreen(view, p);
+        return `${fmt(q.x)} ${fmt(q.y)}`;
+      };
+      return `M${s(first.p0)}` + segments.map((g) => (g.kind === 'line' ? `L${s(g.p1)}` : `C${s(g.p1)} ${s(g.p2)} ${s(g.p3)}`)).join('') + 'Z';
+    })
+    .join('');
+}
+
+/** One drawn point: where it is in font units and on screen, and what it is. */
+export interface PointMark {
+  readonly contour: number;
+  readonly point: number;
+  readonly at: Point;
+  readonly screen: Point;
+  /** 'corner' and 'smooth' are on-curve points; 'handle' is off-curve. */
+  readonly role: 'corner' | 'smooth' | 'handle';
+}
+
+/** Every point of the outline as a mark. */
+export function pointMarks(outline: GlyphOutline, view: ViewTransform): PointMark[] {
+  return outline.contours.flatMap((contour, c) =>
+    contour.points.map((p, i): PointMark => ({
+      contour: c,
+      point: i,
+      at: { x: p.x, y: p.y },
+      screen: toScreen(view, p),
+      role: p.kind === 'off' ? 'handle' : p.smooth ? 'smooth' : 'corner',
+    })),
+  );
+}
+
+/** Index pairs [handle, its on-curve point] of a contour: each handle's neighbour that is on-curve. */
+export function handleAnchors(contour: OutlineContour): [number, number][] {
+  const n = contour.points.length;
+  const pairs: [number, number][] = [];
+  contour.points.forEach((p, i) => {
+    if (p.kind !== 'off') return;
+    const before = (i - 1 + n) % n;
+    const after = (i + 1) % n;
+    pairs.push([i, contour.points[before]?.kind === 'on' ? before : after]);
+  });
+  return pairs;
+}
+
+/** SVG path data of every handle line (handle to its on-curve point) at this view. */
+export function handleLinesPathData(outline: GlyphOutline, view: ViewTransform): string {
+  return outline.contours
+    .flatMap((contour) =>
+      handleAnchors(contour).map(([h, a]) => {
+        const p = toScreen(view, contour.points[h]!);
+        const q = toScreen(view, contour.points[a]!);
+        return `M${fmt(p.x)} ${fmt(p.y)}L${fmt(q.x)} ${fmt(q.y)}`;
+      }),
+    )
+    .join('');
+}

@@ -1,0 +1,144 @@
+// Editing a letter in the browser: a drawn sheet is opened, its letters assigned and
+// fitted in the worker, shown at a glance, and one letter opened on the canvas. Points,
+// handles and combs must be drawn; dragging an on-curve point moves it (and the comb
+// is recomputed on every pointer move); Ctrl+Z puts it back in one step.
+import { test, expect, type Page } from '@playwright/test';
+import { createCanvas } from '@napi-rs/canvas';
+import sharp from 'sharp';
+import { checkRequirement, CHROMIUM } from '../support/require-tool.ts';
+
+const chromium = checkRequirement(CHROMIUM);
+
+/** A grey one-row sheet drawn by Skia (@napi-rs/canvas): "o" (a ring), "l" (a bar) and "e"-like arc, 300 dpi. */
+async function sheetPng(): Promise<Buffer> {
+  const width = 420;
+  const height = 200;
+  const canvas = createCanvas(width, height);
+  const g = canvas.getContext('2d');
+  g.fillStyle = '#f2f0ea';
+  g.fillRect(0, 0, width, height);
+  g.fillStyle = '#1a1a1a';
+  g.beginPath();
+  g.ellipse(80, 110, 44, 50, 0, 0, 2 * Math.PI);
+  g.ellipse(80, 110, 24, 32, 0, 0, 2 * Math.PI, true);
+  g.fill();
+  g.fillRect(170, 40, 22, 120);
+  g.beginPath();
+  g.moveTo(240, 160);
+  g.lineTo(300, 60);
+  g.lineTo(360, 160);
+  g.lineTo(338, 160);
+  g.lineTo(300, 96);
+  g.lineTo(262, 160);
+  g.closePath();
+  g.fill();
+  const rgba = g.getImageData(0, 0, width, height).data;
+  const grey = Buffer.alloc(width * height);
+  for (let i = 0; i < grey.length; i++) grey[i] = rgba[i * 4] ?? 255;
+  return sharp(grey, { raw: { width, height, channels: 1 } }).png().withMetadata({ density: 300 }).toBuffer();
+}
+
+async function openFittedSheet(page: Page): Promise<void> {
+  await page.goto('/');
+  await page.getByTestId('scan-file').setInputFiles({ name: 'sheet.png', mimeType: 'image/png', buffer: await sheetPng() });
+  await expect(page.getByTestId('letter-count')).toHaveText('3 letters in 1 row');
+  await page.getByLabel('Characters on the sheet, in reading order').fill('olv');
+  await page.getByRole('button', { name: 'Assign' }).click();
+  await expect(page.getByTestId('assigned-count')).toHaveText('3 of 3 letters assigned');
+  await page.getByRole('button', { name: 'Fit the assigned letters' }).click();
+  await expect(page.getByRole('heading', { name: 'Letters at a glance' })).toBeVisible();
+}
+
+const numberAttribute = async (page: Page, testId: string, name: string) => Number(await page.getByTestId(testId).getAttribute(name));
+
+test.describe('editing a letter in the browser', () => {
+  test.skip(!chromium.available, chromium.message);
+
+  test('shows every fitted letter at a glance, and sorting by warnings keeps them all', async ({ page }) => {
+    await openFittedSheet(page);
+    const thumbnails = page.getByTestId('letter-thumbnail');
+    await expect(thumbnails).toHaveCount(3);
+    await expect(thumbnails.nth(0)).toHaveAttribute('data-character', 'o');
+    for (const i of [0, 1, 2]) await expect(thumbnails.nth(i).locator('path')).toHaveAttribute('d', /^M.+Z/);
+    await page.getByTestId('glance-order').selectOption('warnings');
+    const counts = await thumbnails.evaluateAll((buttons) => buttons.map((b) => Number(b.getAttribute('data-warnings'))));
+    expect(counts).toEqual([...counts].sort((a, b) => b - a));
+    expect(counts).toHaveLength(3);
+  });
+
+  test('draws points, handles and combs, drags an on-curve point with the comb following, and Ctrl+Z puts it back', async ({ page }) => {
+    await openFittedSheet(page);
+    await page.getByTestId('letter-thumbnail').filter({ has: page.locator('text=o') }).first().click();
+    const canvas = page.getByTestId('letter-canvas');
+    await expect(canvas).toBeVisible();
+    // The ring "o": two contours of curves, so every on-curve point is smooth and has handles.
+    const status = page.getByTestId('letter-status');
+    await expect(status).toContainText('2 contours');
+    const onCurve = page.getByTestId('on-curve-point');
+    await expect(onCurve.first()).toBeVisible();
+    expect(await numberAttribute(page, 'letter-status', 'data-on-curve')).toBeGreaterThanOrEqual(8);
+    expect(await numberAttribute(page, 'letter-status', 'data-handles')).toBeGreaterThanOrEqual(16);
+    await expect(page.getByTestId('handle')).toHaveCount(await numberAttribute(page, 'letter-status', 'data-handles'));
+    expect(await numberAttribute(page, 'letter-canvas', 'data-comb-teeth')).toBeGreaterThan(0);
+    await expect(page.getByTestId('comb-envelope')).toHaveAttribute('d', /^M.+L/);
+    await expect(page.getByTestId('continuity').first()).toHaveAttribute('data-continuity', /^(corner|G1|G2)$/);
+    await expect(page.getByTestId('guide')).toHaveCount(4);
+    await expect(page.getByTestId('sidebearing-line')).toHaveCount(2);
+    await page.screenshot({ path: 'test-results/edit-letter.png' });
+
+    // Drag the first on-curve point 40 px right and 30 px up, in steps.
+    const point = onCurve.first();
+    const contour = await point.getAttribute('data-contour');
+    const index = await point.getAttribute('data-point');
+    const the = page.locator(`[data-testid="on-curve-point"][data-contour="${contour}"][data-point="${index}"]`);
+    const before = { x: Number(await the.getAttribute('data-x')), y: Number(await the.getAttribute('data-y')) };
+    const box = (await the.boundingBox())!;
+    const start = { x: box.x + box.width / 2, y: box.y + box.height / 2 };
+    const revisionBefore = await numberAttribute(page, 'letter-canvas', 'data-comb-revision');
+    const steps = 8;
+    await page.mouse.move(start.x, start.y);
+    await page.mouse.down();
+    await page.mouse.move(start.x + 40, start.y - 30, { steps });
+    await expect(the).toHaveAttribute('data-selected', 'true');
+    await expect.poll(async () => Number(await the.getAttribute('data-x'))).toBeGreaterThan(before.x);
+    await page.mouse.up();
+    const after = { x: Number(await the.getAttribute('data-x')), y: Number(await the.getAttribute('data-y')) };
+    expect(after.y).toBeGreaterThan(before.y);
+    // The pointer readout (font units under the pointer) shows where the point now is, to the rounding of one move.
+    const readout = page.getByTestId('pointer-readout');
+    const scale = await numberAttribute(page, 'letter-canvas', 'data-scale');
+    const unitsPerPixel = 1 / scale;
+    expect(Math.abs(Number(await readout.getAttribute('data-x')) - after.x)).toBeLessThanOrEqual(2 + unitsPerPixel * 2);
+    expect(Math.abs(Number(await readout.getAttribute('data-y')) - after.y)).toBeLessThanOrEqual(2 + unitsPerPixel * 2);
+    // The moved point is drawn where the mouse let go.
+    const moved = (await the.boundingBox())!;
+    expect(Math.abs(moved.x + moved.width / 2 - (start.x + 40))).toBeLessThan(2 + scale);
+    // Every pointer move that changed the outline redrew the comb (the first move only passes the drag threshold).
+    expect(await numberAttribute(page, 'letter-canvas', 'data-comb-revision')).toBeGreaterThanOrEqual(revisionBefore + steps - 2);
+    await expect(page.getByTestId('undo-steps')).toHaveText('1 edit to undo');
+
+    await page.keyboard.press('Control+z');
+    await expect(the).toHaveAttribute('data-x', String(before.x));
+    await expect(the).toHaveAttribute('data-y', String(before.y));
+    await expect(page.getByTestId('undo-steps')).toHaveText('0 edits to undo');
+    await page.keyboard.press('Control+Shift+z');
+    await expect(the).toHaveAttribute('data-x', String(after.x));
+  });
+
+  test('nudges the selected point by one unit and ten with shift, and zooms with the keys', async ({ page }) => {
+    await openFittedSheet(page);
+    await page.getByTestId('letter-thumbnail').first().click();
+    const the = page.getByTestId('on-curve-point').first();
+    const x = Number(await the.getAttribute('data-x'));
+    const box = (await the.boundingBox())!;
+    await page.mouse.click(box.x + box.width / 2, box.y + box.height / 2);
+    await expect(the).toHaveAttribute('data-selected', 'true');
+    await page.keyboard.press('ArrowRight');
+    await expect(the).toHaveAttribute('data-x', String(x + 1));
+    await page.keyboard.press('Shift+ArrowLeft');
+    await expect(the).toHaveAttribute('data-x', String(x - 9));
+    const scale = await numberAttribute(page, 'letter-canvas', 'data-scale');
+    await page.keyboard.press('+');
+    await expect.poll(() => numberAttribute(page, 'letter-canvas', 'data-scale')).toBeGreaterThan(scale);
+  });
+});

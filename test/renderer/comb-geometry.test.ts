@@ -1,0 +1,57 @@
+// Curvature combs as the canvas draws them. If these broke, the comb a designer reads
+// to judge an outline's smoothness would lie: wrong tooth lengths, wrong side, or an
+// envelope that does not join the teeth's ends.
+import { describe, expect, it } from 'vitest';
+import { Bezier } from 'bezier-js';
+import { cubic, line } from '../../core/geometry/segment.ts';
+import { combScale, contourCombs, envelopePathData, teethPathData } from '../../renderer/src/editor/comb-geometry.ts';
+
+const s = cubic({ x: 0, y: 0 }, { x: 120, y: 260 }, { x: 380, y: -90 }, { x: 500, y: 200 });
+const reference = new Bezier(0, 0, 120, 260, 380, -90, 500, 200);
+
+describe('curvature combs', () => {
+  it('stands each tooth scale·|κ| long along the normal, κ agreeing with bezier-js', () => {
+    const scale = 4000;
+    const [comb] = contourCombs([s], { density: 17, scale });
+    expect(comb?.teeth).toHaveLength(17);
+    comb!.teeth.forEach((tooth, i) => {
+      const t = i / 16;
+      // Reference: bezier-js 6.1.4 Bezier.curvature(t).k, (x′y″ − y′x″)/|B′|³ — the same sign
+      // convention as core (κ > 0 turning left, y up) — and the left unit normal (−y′, x′)/|B′|
+      // from Bezier.derivative(t), as bezier-js's own normal(t) builds it (src/bezier.js __normal2).
+      const k = reference.curvature(t).k;
+      const d = reference.derivative(t);
+      const n = { x: -d.y / Math.hypot(d.x, d.y), y: d.x / Math.hypot(d.x, d.y) };
+      expect(tooth.curvature).toBeCloseTo(k, 10);
+      const dx = tooth.tip.x - tooth.foot.x;
+      const dy = tooth.tip.y - tooth.foot.y;
+      expect(Math.hypot(dx, dy)).toBeCloseTo(scale * Math.abs(k), 8);
+      // Along the normal, on the convex side: tip = foot − N·κ·scale.
+      expect(dx).toBeCloseTo(-n.x * k * scale, 8);
+      expect(dy).toBeCloseTo(-n.y * k * scale, 8);
+      const foot = reference.compute(t);
+      expect(tooth.foot.x).toBeCloseTo(foot.x, 9);
+      expect(tooth.foot.y).toBeCloseTo(foot.y, 9);
+    });
+  });
+
+  it('gives straight segments no comb and keeps each comb tied to its segment', () => {
+    const combs = contourCombs([line({ x: 500, y: 200 }, { x: 0, y: 0 }), s], { density: 8, scale: 1 });
+    expect(combs.map((c) => c.segment)).toEqual([1]);
+  });
+
+  it('runs the envelope through the outer ends of the teeth, in order', () => {
+    const [comb] = contourCombs([s], { density: 5, scale: 1000 });
+    expect(comb!.envelope).toEqual(comb!.teeth.map((t) => t.tip));
+    const view = { scale: 1, originX: 0, originY: 0 };
+    expect(envelopePathData([comb!], view).match(/[ML]/g)).toHaveLength(5);
+    expect(teethPathData([comb!], view).match(/M/g)).toHaveLength(5);
+  });
+
+  it('makes 1× combs on a circle as tall as the letter a tenth of its height long', () => {
+    const height = 700;
+    // κ of a circle of diameter h is 2/h; the tooth is scale·κ.
+    expect(combScale(height, 1) * (2 / height)).toBeCloseTo(height / 10, 9);
+    expect(combScale(height, 2)).toBeCloseTo(2 * combScale(height, 1), 9);
+  });
+});
