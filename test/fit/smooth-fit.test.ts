@@ -20,36 +20,7 @@ import { roundToGrid } from '../../core/fit/grid-rounding.ts';
 import { contourReport } from '../../core/fit/quality-report.ts';
 import type { FittedContour } from '../../core/fit/fitted-contour.ts';
 import { curvature, derivative, evaluate, type CubicSegment, type Point } from '../../core/geometry/index.ts';
-import { gaussianSource } from '../raster/degrade.ts';
-import { seededRandom } from '../support/seeded-random.ts';
-import { circleChain, polygonChain, sCurveBandChain } from './synthetic-chains.ts';
-
-/** A closed polar curve r(θ) about c, sampled about once per unit of arc, with seeded radial noise. */
-function polarChain(c: Point, r: (theta: number) => number, noise: number, seed: number): Point[] {
-  const gauss = gaussianSource(seededRandom(seed));
-  const at = (theta: number): Point => ({ x: r(theta) * Math.cos(theta), y: r(theta) * Math.sin(theta) });
-  const dense = 20000;
-  const table = [0];
-  for (let i = 1; i <= dense; i++) {
-    const a = at((2 * Math.PI * (i - 1)) / dense);
-    const b = at((2 * Math.PI * i) / dense);
-    table.push(table[i - 1]! + Math.hypot(b.x - a.x, b.y - a.y));
-  }
-  const total = table[dense]!;
-  const count = Math.round(total);
-  const points: Point[] = [];
-  let j = 0;
-  for (let i = 0; i < count; i++) {
-    const s = (i * total) / count;
-    while (table[j + 1]! <= s) j++;
-    const theta = (2 * Math.PI * (j + (s - table[j]!) / (table[j + 1]! - table[j]!))) / dense;
-    const p = at(theta);
-    const e = noise * gauss();
-    const l = Math.hypot(p.x, p.y);
-    points.push({ x: c.x + p.x + (p.x / l) * e, y: c.y + p.y + (p.y / l) * e });
-  }
-  return points;
-}
+import { circleChain, polarChain, polygonChain, sCurveBandChain } from './synthetic-chains.ts';
 
 /** Lamé superellipse |x/a|^e + |y/b|^e = 1 in polar form. */
 function superellipse(a: number, b: number, e: number): (theta: number) => number {
