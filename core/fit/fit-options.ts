@@ -39,6 +39,14 @@ export interface FitOptions {
    */
   readonly pixelSize?: number;
   /**
+   * The scan's edge blur σ in scan pixels, as the tracer measures it
+   * (core/raster/edge-blur.ts). It sets how far a corner the scan rounded may lie from
+   * the traced tip, and so tells that rounding from one the designer drew. Default:
+   * unknown, and corners are given the reach of a moderately blurred scan
+   * (corners.ts, CORNER_ROUNDING_RADIUS_PX).
+   */
+  readonly scanBlurPx?: number;
+  /**
    * 'economy' fits the fewest on-curve points (corners, lines, extrema, least-squares
    * cubics); 'smooth' fits one C² B-spline and reduces it (smooth-fit.ts), for brush
    * and pen lettering where curvature continuity matters more than point economy.
@@ -65,6 +73,8 @@ export interface ResolvedFitOptions {
   readonly grid: number;
   /** Undefined here means: estimate from the chain. */
   readonly pixelSize: number | undefined;
+  /** Undefined here means: unknown. */
+  readonly scanBlurPx: number | undefined;
   readonly mode: FitMode;
   readonly fairing: boolean;
 }
@@ -130,6 +140,7 @@ export function resolveFitOptions(options: FitOptions = {}): ResolvedFitOptions 
   if (!(axisSnapDegrees >= 0 && axisSnapDegrees < 45)) throw new RangeError(`axisSnapDegrees must be between 0 and 45, got ${String(axisSnapDegrees)}`);
   if (!(grid > 0) || !Number.isFinite(grid)) throw new RangeError(`grid must be a positive number of font units, got ${String(grid)}`);
   if (options.pixelSize !== undefined && !(options.pixelSize > 0)) throw new RangeError(`pixelSize must be positive, got ${String(options.pixelSize)}`);
+  if (options.scanBlurPx !== undefined && !(options.scanBlurPx > 0 && Number.isFinite(options.scanBlurPx))) throw new RangeError(`scanBlurPx must be a positive number of scan pixels, got ${String(options.scanBlurPx)}`);
   const mode = options.mode ?? DEFAULT_FIT_MODE;
   if (mode !== 'economy' && mode !== 'smooth') throw new RangeError(`mode must be 'economy' or 'smooth', got ${String(mode)}`);
   return {
@@ -140,6 +151,7 @@ export function resolveFitOptions(options: FitOptions = {}): ResolvedFitOptions 
     forcedSmooth: options.forcedSmooth ?? [],
     grid,
     pixelSize: options.pixelSize,
+    scanBlurPx: options.scanBlurPx,
     mode,
     fairing: options.fairing ?? DEFAULT_FAIRING,
   };

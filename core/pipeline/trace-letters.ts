@@ -104,7 +104,9 @@ export function fitTracedSheet(scan: TraceScanResult, options: Omit<TraceLetters
   const scale = options.unitsPerPixel ?? scaleFromMetrics(metrics, options.capHeightUnits ?? DEFAULT_CAP_HEIGHT_UNITS);
   if (!(scale > 0) || !Number.isFinite(scale)) throw new RangeError(`The scale must be a positive number of font units per pixel, not ${String(scale)}.`);
   const tolerance = Math.max(options.fit?.tolerance ?? DEFAULT_TOLERANCE, MIN_TOLERANCE_PIXELS * scale);
-  const fitOptions: FitOptions = { ...options.fit, tolerance, pixelSize: scale };
+  // The scan's measured edge blur tells drawn roundings from scan rounding (core/fit/corners.ts).
+  const scanBlurPx = options.fit?.scanBlurPx ?? scan.edgeBlurPx ?? undefined;
+  const fitOptions: FitOptions = { ...options.fit, tolerance, pixelSize: scale, ...(scanBlurPx === undefined ? {} : { scanBlurPx }) };
   const notes = [...scan.notes, ...metrics.notes];
   const letters = scan.sheet.letters.map((letter, i): TracedLetter => {
     report?.(i / Math.max(1, scan.sheet.letters.length), 'fitting');

@@ -6,6 +6,7 @@
 
 import { binarize, type BinarizeMethod, type BinarizeOptions } from './binarize.ts';
 import { cleanupMask } from './cleanup.ts';
+import { estimateEdgeBlur } from './edge-blur.ts';
 import type { IsoLevelField } from './iso-level-field.ts';
 import { nestContours } from './nesting.ts';
 import { assumedResolutionNote, millimetresToPixels, resolveResolution, type Resolution } from './physical-units.ts';
@@ -51,6 +52,11 @@ export interface TraceScanResult {
   readonly levels: PaperAndInkLevels;
   readonly resolution: Resolution;
   readonly boundary: 'marching-squares' | 'pixel-edges';
+  /**
+   * The scan's edge blur σ in px (edge-blur.ts), or null for bilevel scans and pages
+   * with too few clean edges. The fitter takes it as `scanBlurPx`.
+   */
+  readonly edgeBlurPx: number | null;
   /** The cleaned ink mask the contours follow. */
   readonly mask: InkMask;
   readonly contours: Contour[];
@@ -125,6 +131,8 @@ export function traceScan(scan: ScanImage, options: TraceScanOptions = {}): Trac
   report('nesting');
   const contours = nestContours(traced.chains);
 
+  const edgeBlurPx = estimateEdgeBlur(binarized.grey, contours, binarized.levels, traced.method === 'pixel-edges');
+
   report('segmentation');
   const sheet = segmentSheet(contours, options.characters === undefined ? {} : { characters: options.characters });
   notes.push(...sheet.notes);
@@ -138,6 +146,7 @@ export function traceScan(scan: ScanImage, options: TraceScanOptions = {}): Trac
     levels: binarized.levels,
     resolution,
     boundary: traced.method,
+    edgeBlurPx,
     mask: cleaned.mask,
     contours,
     sheet,

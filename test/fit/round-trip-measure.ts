@@ -70,6 +70,8 @@ export interface GlyphMeasurement {
   /** Every contour winds by its depth (even counter-clockwise) and the filled area matches the font's. */
   readonly windingCorrect: boolean;
   readonly fitMs: number;
+  /** The scan's edge blur as the tracer measured it (px). */
+  readonly edgeBlurPx: number | null;
   /** Fitter's own report: tolerance exceeded (outside corners), for diagnosis. */
   readonly maxDeviationOutsideCorners: number;
   /** The fitted outline (for figures and inspection). */
@@ -156,7 +158,8 @@ export function measureGlyph(font: RoundTripFont, commands: readonly PathCommand
     points: c.points.map((p) => ({ x: (p.x - placement.originX) / scale, y: (placement.originY - p.y) / scale })),
   }));
   const started = performance.now();
-  const fitted = fitGlyph(chains, fit);
+  const scanBlurPx = fit.scanBlurPx ?? traced.edgeBlurPx ?? undefined;
+  const fitted = fitGlyph(chains, scanBlurPx === undefined ? fit : { ...fit, scanBlurPx });
   const fitMs = performance.now() - started;
 
   const reference = commandsToContours(commands);
@@ -187,6 +190,7 @@ export function measureGlyph(font: RoundTripFont, commands: readonly PathCommand
     fontContours: reference.length,
     windingCorrect: windingByDepth && Math.abs(fittedFill - fontFill) <= 0.02 * fontFill,
     fitMs,
+    edgeBlurPx: traced.edgeBlurPx,
     maxDeviationOutsideCorners: fitted.report.maxDeviationOutsideCorners,
     outline: fitted.outline,
   };

@@ -45,10 +45,9 @@ const THRESHOLDS: Record<RoundTripFont, Thresholds> = {
     extremaInside: 1,
   },
   'Linux Libertine Regular': {
-    // Measured (subset): p95 2.0 / 5.5 / 1.8. Not met at 0.5 px/unit: the rounded crotch
-    // of n (≈ 1.5 px radius at that scale) cannot be told from anti-aliasing rounding
-    // and is sharpened (corners.ts, CORNER_ROUNDING_RADIUS_PX).
-    hausdorffP95: { 'clean 1 px/unit': 2.5, 'clean 0.5 px/unit': 6.5, 'rough 1 px/unit': 3 },
+    // Measured (subset): p95 2.0 / 3.4 / 1.6. Not met at 0.5 px/unit (target 2): e's
+    // thin hairline joins and the bowls' small roundings are a pixel or two there.
+    hausdorffP95: { 'clean 1 px/unit': 2.5, 'clean 0.5 px/unit': 4, 'rough 1 px/unit': 2.5 },
     // Measured: 1.13 / 1.00 / 1.13; target 1.15. Libertine leaves x-extrema out of its
     // serif end faces; the fitter puts a point there, as the extremum rule requires.
     onCurveRatio: { 'clean 1 px/unit': 1.15, 'clean 0.5 px/unit': 1.15, 'rough 1 px/unit': 1.2 },
@@ -133,4 +132,22 @@ describeWithFont('shallow curves and stems of Linux Libertine', LIBERTINE, () =>
 describe('glyph round trip through the fitter', () => {
   roundTripSuite({ ...CANTARELL, label: 'Cantarell Regular' });
   roundTripSuite({ ...LIBERTINE, label: 'Linux Libertine Regular' });
+});
+
+describeWithFont('drawn roundings of Linux Libertine on a sharp scan at 0.5 px per unit', LIBERTINE, () => {
+  let glyphs: readonly GlyphMeasurement[] = [];
+  beforeAll(() => {
+    glyphs = measureRoundTrip({ fonts: ['Linux Libertine Regular'], glyphs: 'Amn', variants: ['clean 0.5 px/unit'] }).glyphs;
+  }, 60_000);
+
+  it('keeps the flat top of A and the rounded crotches of m and n instead of sharpening them', () => {
+    // Reference: the font's outlines. With the corner reach of a moderately blurred scan
+    // (no blur figure), A's apex was drawn to a point 8 units above the font's flat top and
+    // m's crotch cut 6 units deep; with the scan's measured blur (≈ 0.55 px) they are
+    // followed: measured 3.4 / 2.5 / 3.1 units.
+    for (const g of glyphs) {
+      expect(g.edgeBlurPx, g.character).not.toBeNull();
+      expect(g.hausdorff, g.character).toBeLessThanOrEqual(4.5);
+    }
+  });
 });
