@@ -2,6 +2,12 @@
 // browser-mode host). One entry per user intent; the renderer imports only these
 // types, never host code. Both hosts route every call through `invokeHandler`
 // (handlers.ts), so the same plain, tested functions answer in either mode.
+//
+// Project files are never named by path from the renderer: a project is chosen in
+// the host's file dialog (desktop) or by its file name from the workspace listing
+// (browser mode), and is afterwards referred to by the opaque handle the host gave
+// for it.
+import type { ProjectData } from './io/project/project-schema.ts';
 
 /** Which host is serving the renderer. */
 export type HostKind = 'electron' | 'browser';
@@ -16,11 +22,78 @@ export interface AppInfo {
 }
 
 /**
+ * The host's name for a project place the user chose (a file they opened or saved,
+ * or the recovery place of a project never saved): opaque, valid while the host runs.
+ */
+export type ProjectHandle = string;
+
+/** How the user chooses project files in this host. */
+export type ProjectListing =
+  /** The host shows its own file dialog; there is nothing to list in the page. */
+  | { kind: 'dialog' }
+  /** Browser mode: the page lists the project files of the workspace folder the host was started in. */
+  | { kind: 'workspace'; folderName: string; projects: WorkspaceProject[] };
+
+export interface WorkspaceProject {
+  /** File name inside the workspace, e.g. "harbour.stemline". */
+  name: string;
+  /** When it was last saved, ISO 8601. */
+  modifiedAt: string;
+}
+
+/**
+ * A project the host read. Every scan carries its bytes in `embedded` (from the
+ * scan's file beside the project, or the project's own copy when the file is missing).
+ */
+export interface OpenedProject {
+  handle: ProjectHandle;
+  /** The project file's name, for the title bar. */
+  name: string;
+  project: ProjectData;
+}
+
+/** Where a project was saved. */
+export interface SavedProject {
+  handle: ProjectHandle;
+  name: string;
+}
+
+/** Autosaved work newer than its project file (or of a project never saved). */
+export interface RecoveredWork {
+  /** The project the work belongs to: its file's handle, or a never-saved project's recovery handle. */
+  handle: ProjectHandle;
+  /** The project file's name, or null for a project never saved. */
+  name: string | null;
+  /** When the work was autosaved, ISO 8601. */
+  savedAt: string;
+  /** The work, with scan bytes as in OpenedProject. */
+  project: ProjectData;
+}
+
+/**
  * Every intent the renderer may ask of the host, with its argument and result.
  * Later capabilities add entries here; each must validate its own arguments.
  */
 export interface HostIntents {
   appInfo: { args: Record<string, never>; result: AppInfo };
+  /** The project files the user can choose from in the page (browser mode), or that the host uses dialogs. */
+  listProjects: { args: Record<string, never>; result: ProjectListing };
+  /** Opens a project: `name` from the workspace listing in browser mode, the file dialog otherwise. Null: the user cancelled. */
+  openProject: { args: { name?: string }; result: OpenedProject | null };
+  /** Saves over the project file `handle` names (one the user opened or saved). */
+  saveProject: { args: { handle: ProjectHandle; project: ProjectData }; result: SavedProject };
+  /**
+   * Saves to a file the user chooses now: `name` in the workspace in browser mode,
+   * the save dialog otherwise. `replacing`: the project's previous handle, whose
+   * autosaved copy the save supersedes. Null: the user cancelled.
+   */
+  saveProjectAs: { args: { project: ProjectData; name?: string; replacing?: ProjectHandle }; result: SavedProject | null };
+  /** Writes the recovery copy of the project `handle` names; without one, of a project never saved (the result names its place). */
+  autosaveProject: { args: { handle?: ProjectHandle; project: ProjectData }; result: { handle: ProjectHandle } };
+  /** Autosaved work newer than the project file `handle` names; without a handle, the latest work of a project never saved. */
+  findRecoveredWork: { args: { handle?: ProjectHandle }; result: RecoveredWork | null };
+  /** Deletes the autosaved copy of the project `handle` names. */
+  discardRecoveredWork: { args: { handle: ProjectHandle }; result: { discarded: boolean } };
 }
 
 export type IntentName = keyof HostIntents;
@@ -31,7 +104,16 @@ export type StemlineHostApi = {
 };
 
 /** Names of every intent, in one list both hosts and the preload agree on. */
-export const INTENT_NAMES = ['appInfo'] as const satisfies readonly IntentName[];
+export const INTENT_NAMES = [
+  'appInfo',
+  'listProjects',
+  'openProject',
+  'saveProject',
+  'saveProjectAs',
+  'autosaveProject',
+  'findRecoveredWork',
+  'discardRecoveredWork',
+] as const satisfies readonly IntentName[];
 
 /** The IPC channel an intent travels on in the Electron shell. */
 export function channelFor(intent: IntentName): string {

@@ -1,18 +1,50 @@
 // The browser-mode host: serves the built renderer and answers its intents over
 // HTTP on the loopback interface, through the same `invokeHandler` the Electron
 // shell uses. It lets the app run where no Electron binary is installed, and lets
-// Playwright drive the real UI against the real handlers.
+// Playwright drive the real UI against the real handlers. Projects are read and
+// written only inside its workspace folder, named when it starts (the page has no
+// native file dialog: it lists the workspace's projects itself).
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import { readFile, stat } from 'node:fs/promises';
 import { extname, join, normalize, resolve, sep } from 'node:path';
 import { invokeHandler } from './handlers.ts';
 import { HandlerError } from './handler-error.ts';
+import { projectAccess, type HostContext } from './host-context.ts';
+import { realWorkspace, workspacePlaces } from './places/workspace-places.ts';
+import { untitledRecoveryFolder } from './places/app-data-folder.ts';
+import type { IntentName } from './api-contract.ts';
 
 /** Only the loopback interface: the host must never be reachable from another machine. */
 export const LOOPBACK_ADDRESS = '127.0.0.1';
 
-/** Largest request body accepted by the intent endpoint (intents carry small JSON). */
+/** Largest request body accepted by the intent endpoint for intents that carry small JSON. */
 const MAX_REQUEST_BYTES = 1 << 20;
+
+/**
+ * Largest body of an intent that carries a whole project (with its scan embedded:
+ * tens of MiB for a 600-dpi page). 256 MiB, half the largest project file: the body
+ * must become one JavaScript string (V8 caps strings near 2^29 characters) and is
+ * parsed into a second copy.
+ */
+export const MAX_PROJECT_REQUEST_BYTES = 256 * 1024 * 1024;
+
+/** The intents whose body is a project. */
+const PROJECT_CARRYING: ReadonlySet<string> = new Set<IntentName>(['saveProject', 'saveProjectAs', 'autosaveProject']);
+
+/** Where the browser host keeps projects. */
+export interface BrowserHostPlaces {
+  /** The workspace folder: the only folder projects are opened from and saved to. */
+  workspace: string;
+  /** Where the autosaved copies of projects never saved go; default the per-user app folder's (app-data-folder.ts). */
+  untitledFolder?: string;
+}
+
+/** A request body over its limit. */
+class BodyTooLarge extends Error {
+  constructor(readonly limit: number) {
+    super('request too large');
+  }
+}
 
 const CONTENT_TYPES: Record<string, string> = {
   '.html': 'text/html; charset=utf-8',
@@ -34,13 +66,20 @@ export interface BrowserHost {
 
 /**
  * Starts serving `rendererDir` (the output of the renderer build) and the intent
- * endpoint `POST /api/<intent>` on 127.0.0.1:`port` (0 picks a free port).
+ * endpoint `POST /api/<intent>` on 127.0.0.1:`port` (0 picks a free port), with
+ * projects kept in `places.workspace`. Throws, saying what to do, when the renderer
+ * is not built or the workspace is not a folder.
  */
-export async function startBrowserHost(rendererDir: string, port: number): Promise<BrowserHost> {
+export async function startBrowserHost(rendererDir: string, port: number, places: BrowserHostPlaces): Promise<BrowserHost> {
   const root = resolve(rendererDir);
   await assertRendererBuilt(root);
+  const workspace = await realWorkspace(places.workspace);
+  const context: HostContext = {
+    host: 'browser',
+    projects: projectAccess(workspacePlaces(workspace), resolve(places.untitledFolder ?? untitledRecoveryFolder())),
+  };
   const server = createServer((request, response) => {
-    route(root, request, response).catch((error: unknown) => {
+    route(root, context, request, response).catch((error: unknown) => {
       sendJson(response, 500, { error: { kind: 'internal', message: `The host failed: ${String(error)}` } });
     });
   });
@@ -65,10 +104,10 @@ async function assertRendererBuilt(root: string): Promise<void> {
   }
 }
 
-async function route(root: string, request: IncomingMessage, response: ServerResponse): Promise<void> {
+async function route(root: string, context: HostContext, request: IncomingMessage, response: ServerResponse): Promise<void> {
   const url = new URL(request.url ?? '/', `http://${LOOPBACK_ADDRESS}`);
   if (url.pathname.startsWith('/api/')) {
-    await answerIntent(url.pathname.slice('/api/'.length), request, response);
+    await answerIntent(url.pathname.slice('/api/'.length), context, request, response);
     return;
   }
   if (request.method !== 'GET' && request.method !== 'HEAD') {
@@ -78,20 +117,24 @@ async function route(root: string, request: IncomingMessage, response: ServerRes
   await serveFile(root, url.pathname, response);
 }
 
-async function answerIntent(intent: string, request: IncomingMessage, response: ServerResponse): Promise<void> {
+async function answerIntent(intent: string, context: HostContext, request: IncomingMessage, response: ServerResponse): Promise<void> {
   if (request.method !== 'POST') {
     sendJson(response, 405, { error: { kind: 'method', message: 'Intents are sent with POST.' } });
     return;
   }
   let args: unknown;
   try {
-    args = JSON.parse((await readBody(request)) || 'null');
-  } catch {
+    args = JSON.parse((await readBody(request, PROJECT_CARRYING.has(intent) ? MAX_PROJECT_REQUEST_BYTES : MAX_REQUEST_BYTES)) || 'null');
+  } catch (error) {
+    if (error instanceof BodyTooLarge) {
+      sendJson(response, 413, { error: { kind: 'bad-arguments', message: `The request is larger than the ${error.limit / 2 ** 20} MiB the browser host takes, so it was refused. A project this large needs smaller scans (a lower resolution or a cropped sheet).` } });
+      return;
+    }
     sendJson(response, 400, { error: { kind: 'bad-arguments', message: 'The request body was not valid JSON.' } });
     return;
   }
   try {
-    const result = await invokeHandler(intent, args, { host: 'browser' });
+    const result = await invokeHandler(intent, args, context);
     sendJson(response, 200, { result });
   } catch (error) {
     if (error instanceof HandlerError) {
@@ -102,15 +145,19 @@ async function answerIntent(intent: string, request: IncomingMessage, response: 
   }
 }
 
-function readBody(request: IncomingMessage): Promise<string> {
+function readBody(request: IncomingMessage, limit: number): Promise<string> {
   return new Promise((resolveBody, rejectBody) => {
     const chunks: Buffer[] = [];
     let size = 0;
+    let refused = false;
     request.on('data', (chunk: Buffer) => {
+      if (refused) return;
       size += chunk.length;
-      if (size > MAX_REQUEST_BYTES) {
-        rejectBody(new Error('request too large'));
-        request.destroy();
+      if (size > limit) {
+        // Stop keeping the body but let it drain, so the refusal reaches the page.
+        refused = true;
+        chunks.length = 0;
+        rejectBody(new BodyTooLarge(limit));
         return;
       }
       chunks.push(chunk);

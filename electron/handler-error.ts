@@ -3,7 +3,17 @@
 // tests tell failures apart without parsing prose.
 import type { HostErrorPayload } from './api-contract.ts';
 
-export type HandlerErrorKind = 'unknown-intent' | 'bad-arguments';
+export type HandlerErrorKind =
+  /** The renderer asked for an intent the host does not offer. */
+  | 'unknown-intent'
+  /** The arguments are not what the intent takes. */
+  | 'bad-arguments'
+  /** A file the user did not choose, or one outside the place the host may use. */
+  | 'path-refused'
+  /** A project handle the host never gave, or has forgotten (it restarted). */
+  | 'project-unknown'
+  /** A project file could not be read or written; the message says why. */
+  | 'project-file';
 
 export class HandlerError extends Error {
   readonly kind: HandlerErrorKind;

@@ -1,14 +1,15 @@
 // The host's handlers: plain functions, one per intent, shared by the Electron main
 // process, the browser-mode host and the tests. They never touch Electron, so they
-// run and are tested in plain Node.
+// run and are tested in plain Node. Every intent has its own argument check, run
+// before its handler.
 import { APP_NAME, APP_VERSION } from './app-identity.ts';
-import { INTENT_NAMES, type AppInfo, type HostIntents, type HostKind, type IntentName } from './api-contract.ts';
+import { INTENT_NAMES, type AppInfo, type HostIntents, type IntentName } from './api-contract.ts';
 import { HandlerError } from './handler-error.ts';
+import type { HostContext } from './host-context.ts';
+import { projectArguments } from './project-arguments.ts';
+import { autosaveProject, discardRecoveredWork, findRecoveredWork, listProjects, openProject, saveProject, saveProjectAs } from './project-handlers.ts';
 
-/** What a handler knows about the host it runs in. */
-export interface HostContext {
-  host: HostKind;
-}
+export type { HostContext } from './host-context.ts';
 
 type Handler<K extends IntentName> = (
   args: HostIntents[K]['args'],
@@ -21,11 +22,27 @@ function appInfo(_args: Record<string, never>, context: HostContext): AppInfo {
   return { name: APP_NAME, version: APP_VERSION, host: context.host, platform: process.platform };
 }
 
-const HANDLERS: HandlerTable = { appInfo };
+const HANDLERS: HandlerTable = {
+  appInfo,
+  listProjects,
+  openProject,
+  saveProject,
+  saveProjectAs,
+  autosaveProject,
+  findRecoveredWork,
+  discardRecoveredWork,
+};
 
 /** Argument checks per intent; each returns the validated arguments or throws. */
 const VALIDATORS: { [K in IntentName]: (raw: unknown) => HostIntents[K]['args'] } = {
   appInfo: (raw) => expectEmptyObject('appInfo', raw),
+  listProjects: (raw) => expectEmptyObject('listProjects', raw),
+  openProject: (raw) => projectArguments('openProject', raw),
+  saveProject: (raw) => projectArguments('saveProject', raw),
+  saveProjectAs: (raw) => projectArguments('saveProjectAs', raw),
+  autosaveProject: (raw) => projectArguments('autosaveProject', raw),
+  findRecoveredWork: (raw) => projectArguments('findRecoveredWork', raw),
+  discardRecoveredWork: (raw) => projectArguments('discardRecoveredWork', raw),
 };
 
 function expectEmptyObject(intent: string, raw: unknown): Record<string, never> {

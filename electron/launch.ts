@@ -1,8 +1,10 @@
 // `npm start`: builds the renderer, then opens Stemline in its Electron window, or,
 // where no Electron binary is installed, says so in one line and serves the same
-// renderer and handlers in the browser on 127.0.0.1.
+// renderer and handlers in the browser on 127.0.0.1, keeping projects in a workspace
+// folder: the one named on the command line (`npm start -- ~/lettering`), or else the
+// directory `npm start` was run from.
 import { spawn, spawnSync } from 'node:child_process';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 import { build } from 'vite';
 import { locateElectron } from './locate-electron.ts';
 import { startBrowserHost } from './browser-host.ts';
@@ -10,6 +12,17 @@ import { PROJECT_ROOT, RENDERER_BUILD_DIR } from './project-paths.ts';
 
 /** Browser-mode port unless STEMLINE_PORT says otherwise; a free one is taken if busy. */
 const DEFAULT_BROWSER_PORT = 5731;
+
+/**
+ * The browser-mode workspace: the folder named on the command line, relative to where
+ * `npm start` was typed, or that directory itself. npm runs scripts in the package's
+ * folder and records the caller's directory in INIT_CWD.
+ */
+function workspaceFolder(): string {
+  const from = process.env.INIT_CWD ?? process.cwd();
+  const named = process.argv[2];
+  return named === undefined ? from : resolve(from, named);
+}
 
 async function main(): Promise<void> {
   await build({ configFile: join(PROJECT_ROOT, 'renderer', 'vite.config.ts'), logLevel: 'warn' });
@@ -21,8 +34,10 @@ async function main(): Promise<void> {
     return;
   }
   console.log(`Electron is not available here (${electron.reason}); serving Stemline in the browser instead.`);
-  const host = await startOnFreePort(Number(process.env.STEMLINE_PORT ?? DEFAULT_BROWSER_PORT));
+  const workspace = workspaceFolder();
+  const host = await startOnFreePort(Number(process.env.STEMLINE_PORT ?? DEFAULT_BROWSER_PORT), workspace);
   console.log(`Stemline is running at ${host.url}  (open it in Chromium, Firefox or another browser; Ctrl+C stops it)`);
+  console.log(`Projects are opened from and saved to ${workspace}`);
 }
 
 function compileElectronShell(): void {
@@ -31,12 +46,12 @@ function compileElectronShell(): void {
   if (result.status !== 0) throw new Error('Building the Electron shell failed (see the messages above).');
 }
 
-async function startOnFreePort(port: number) {
+async function startOnFreePort(port: number, workspace: string) {
   try {
-    return await startBrowserHost(RENDERER_BUILD_DIR, port);
+    return await startBrowserHost(RENDERER_BUILD_DIR, port, { workspace });
   } catch (error) {
     if ((error as NodeJS.ErrnoException).code !== 'EADDRINUSE') throw error;
-    return startBrowserHost(RENDERER_BUILD_DIR, 0);
+    return startBrowserHost(RENDERER_BUILD_DIR, 0, { workspace });
   }
 }
 

@@ -22,6 +22,13 @@ function callHost(intent: IntentName, args: unknown): Promise<never> {
 
 const stemlineHostApi = {
   appInfo: (args) => callHost('appInfo', args),
+  listProjects: (args) => callHost('listProjects', args),
+  openProject: (args) => callHost('openProject', args),
+  saveProject: (args) => callHost('saveProject', args),
+  saveProjectAs: (args) => callHost('saveProjectAs', args),
+  autosaveProject: (args) => callHost('autosaveProject', args),
+  findRecoveredWork: (args) => callHost('findRecoveredWork', args),
+  discardRecoveredWork: (args) => callHost('discardRecoveredWork', args),
 } satisfies import('./api-contract.ts').StemlineHostApi;
 
 contextBridge.exposeInMainWorld('stemline', stemlineHostApi);

@@ -2,10 +2,18 @@
 // driven in Debian's headless Chromium (Playwright cannot download its own browser
 // here). `npm test` builds the renderer before this runs.
 import { defineConfig } from '@playwright/test';
+import { mkdirSync, rmSync } from 'node:fs';
 import { CHROMIUM } from './support/require-tool.ts';
+import { BROWSER_HOST_FOLDER, BROWSER_UNTITLED_FOLDER, BROWSER_WORKSPACE } from './support/browser-host-folders.ts';
 
 /** Port for the test host; away from the `npm start` default so both can run. */
 const TEST_HOST_PORT = 5742;
+
+// The host's workspace and recovery folder start empty on every run. Playwright loads
+// this file again in each worker (TEST_WORKER_INDEX set), where nothing is removed.
+if (process.env.TEST_WORKER_INDEX === undefined) rmSync(BROWSER_HOST_FOLDER, { recursive: true, force: true });
+mkdirSync(BROWSER_WORKSPACE, { recursive: true });
+mkdirSync(BROWSER_UNTITLED_FOLDER, { recursive: true });
 
 export default defineConfig({
   testDir: './browser',
@@ -24,7 +32,7 @@ export default defineConfig({
     },
   },
   webServer: {
-    command: `npx tsx electron/serve-browser.ts --port ${TEST_HOST_PORT}`,
+    command: `npx tsx electron/serve-browser.ts --port ${TEST_HOST_PORT} --workspace "${BROWSER_WORKSPACE}" --untitled-folder "${BROWSER_UNTITLED_FOLDER}"`,
     cwd: '..',
     url: `http://127.0.0.1:${TEST_HOST_PORT}/`,
     reuseExistingServer: false,

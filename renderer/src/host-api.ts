@@ -31,13 +31,25 @@ async function postIntent<K extends IntentName>(intent: K, args: HostIntents[K][
   } catch {
     throw new HostError({ kind: 'host-unreachable', message: 'Stemline’s host is not answering. Is the "npm start" terminal still running?' });
   }
-  const reply = (await response.json()) as { result?: HostIntents[K]['result']; error?: HostErrorPayload };
+  let reply: { result?: HostIntents[K]['result']; error?: HostErrorPayload };
+  try {
+    reply = (await response.json()) as typeof reply;
+  } catch {
+    throw new HostError({ kind: 'host-unreadable', message: `Stemline’s host gave an answer that could not be read (HTTP ${response.status}). Try again; if it persists, restart "npm start".` });
+  }
   if (reply.error) throw new HostError(reply.error);
   return reply.result as HostIntents[K]['result'];
 }
 
 const browserHostApi: StemlineHostApi = {
   appInfo: (args) => postIntent('appInfo', args),
+  listProjects: (args) => postIntent('listProjects', args),
+  openProject: (args) => postIntent('openProject', args),
+  saveProject: (args) => postIntent('saveProject', args),
+  saveProjectAs: (args) => postIntent('saveProjectAs', args),
+  autosaveProject: (args) => postIntent('autosaveProject', args),
+  findRecoveredWork: (args) => postIntent('findRecoveredWork', args),
+  discardRecoveredWork: (args) => postIntent('discardRecoveredWork', args),
 };
 
 /** The host API for this window: the preload bridge in Electron, HTTP in a browser. */

@@ -3,51 +3,10 @@
 // handles and combs must be drawn; dragging an on-curve point moves it (and the comb
 // is recomputed on every pointer move); Ctrl+Z puts it back in one step.
 import { test, expect, type Page } from '@playwright/test';
-import { createCanvas } from '@napi-rs/canvas';
-import sharp from 'sharp';
 import { checkRequirement, CHROMIUM } from '../support/require-tool.ts';
+import { openFittedDemoSheet as openFittedSheet } from '../support/demo-sheet.ts';
 
 const chromium = checkRequirement(CHROMIUM);
-
-/** A grey one-row sheet drawn by Skia (@napi-rs/canvas): "o" (a ring), "l" (a bar) and "e"-like arc, 300 dpi. */
-async function sheetPng(): Promise<Buffer> {
-  const width = 420;
-  const height = 200;
-  const canvas = createCanvas(width, height);
-  const g = canvas.getContext('2d');
-  g.fillStyle = '#f2f0ea';
-  g.fillRect(0, 0, width, height);
-  g.fillStyle = '#1a1a1a';
-  g.beginPath();
-  g.ellipse(80, 110, 44, 50, 0, 0, 2 * Math.PI);
-  g.ellipse(80, 110, 24, 32, 0, 0, 2 * Math.PI, true);
-  g.fill();
-  g.fillRect(170, 40, 22, 120);
-  g.beginPath();
-  g.moveTo(240, 160);
-  g.lineTo(300, 60);
-  g.lineTo(360, 160);
-  g.lineTo(338, 160);
-  g.lineTo(300, 96);
-  g.lineTo(262, 160);
-  g.closePath();
-  g.fill();
-  const rgba = g.getImageData(0, 0, width, height).data;
-  const grey = Buffer.alloc(width * height);
-  for (let i = 0; i < grey.length; i++) grey[i] = rgba[i * 4] ?? 255;
-  return sharp(grey, { raw: { width, height, channels: 1 } }).png().withMetadata({ density: 300 }).toBuffer();
-}
-
-async function openFittedSheet(page: Page): Promise<void> {
-  await page.goto('/');
-  await page.getByTestId('scan-file').setInputFiles({ name: 'sheet.png', mimeType: 'image/png', buffer: await sheetPng() });
-  await expect(page.getByTestId('letter-count')).toHaveText('3 letters in 1 row');
-  await page.getByLabel('Characters on the sheet, in reading order').fill('olv');
-  await page.getByRole('button', { name: 'Assign' }).click();
-  await expect(page.getByTestId('assigned-count')).toHaveText('3 of 3 letters assigned');
-  await page.getByRole('button', { name: 'Fit the assigned letters' }).click();
-  await expect(page.getByRole('heading', { name: 'Letters at a glance' })).toBeVisible();
-}
 
 const numberAttribute = async (page: Page, testId: string, name: string) => Number(await page.getByTestId(testId).getAttribute(name));
 

@@ -10,6 +10,7 @@ import { APP_VERSION } from '../../electron/app-identity.ts';
 
 let host: BrowserHost;
 let rendererDir: string;
+let workspace: string;
 
 beforeAll(async () => {
   const folder = mkdtempSync(join(tmpdir(), 'stemline-host-'));
@@ -18,7 +19,9 @@ beforeAll(async () => {
   writeFileSync(join(rendererDir, 'index.html'), '<!doctype html><title>Stemline</title>');
   writeFileSync(join(rendererDir, 'assets', 'app.js'), 'console.log(1)');
   writeFileSync(join(folder, 'secret.txt'), 'not for the page');
-  host = await startBrowserHost(rendererDir, 0);
+  workspace = join(folder, 'workspace');
+  mkdirSync(workspace);
+  host = await startBrowserHost(rendererDir, 0, { workspace, untitledFolder: join(folder, 'recovery') });
 });
 afterAll(() => host.close());
 
@@ -74,6 +77,28 @@ describe('browser-mode host', () => {
   });
 
   it('refuses to start when the renderer has not been built, saying what to run', async () => {
-    await expect(startBrowserHost(join(rendererDir, 'missing'), 0)).rejects.toThrow(/npm run build/);
+    await expect(startBrowserHost(join(rendererDir, 'missing'), 0, { workspace })).rejects.toThrow(/npm run build/);
+  });
+
+  it('refuses to start without a workspace folder, saying how to name one', async () => {
+    await expect(startBrowserHost(rendererDir, 0, { workspace: join(workspace, 'missing') })).rejects.toThrow(/does not exist.*npm start -- \/path\/to\/folder/);
+  });
+
+  it('lists the projects of its workspace folder', async () => {
+    writeFileSync(join(workspace, 'harbour.stemline'), '{}');
+    const reply = await fetch(new URL('api/listProjects', host.url), { method: 'POST', body: '{}' });
+    expect(await reply.json()).toMatchObject({ result: { kind: 'workspace', folderName: 'workspace', projects: [{ name: 'harbour.stemline' }] } });
+  });
+
+  it('refuses a request body beyond its limit with a message, not a crash', async () => {
+    const reply = await fetch(new URL('api/appInfo', host.url), { method: 'POST', body: JSON.stringify({ padding: 'x'.repeat(2 << 20) }) });
+    expect(reply.status).toBe(413);
+    expect(await reply.json()).toMatchObject({ error: { kind: 'bad-arguments', message: expect.stringMatching(/larger than the 1 MiB the browser host takes/) } });
+  });
+
+  it('refuses a project name leading out of the workspace over HTTP too', async () => {
+    const reply = await fetch(new URL('api/openProject', host.url), { method: 'POST', body: JSON.stringify({ name: '../secret.txt' }) });
+    expect(reply.status).toBe(400);
+    expect(await reply.json()).toMatchObject({ error: { kind: 'path-refused' } });
   });
 });

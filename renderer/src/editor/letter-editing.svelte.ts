@@ -1,7 +1,7 @@
 // The editing session over the fitted letters: the editor state (core/document: the
 // glyph document and its history), changed only by dispatching transactions, undo and
 // redo. Components render it and call these methods; nothing else changes it.
-import { canRedo, canUndo, createDocument, createEditorState, dispatch, glyphOf, redo, undo, type EditorState, type GlyphId, type Transaction } from '../../../core/document/index.ts';
+import { canRedo, canUndo, createDocument, createEditorState, dispatch, glyphOf, redo, undo, type EditorState, type GlyphDocument, type GlyphId, type Transaction } from '../../../core/document/index.ts';
 import type { GlyphOutline } from '../../../core/outline/index.ts';
 import type { FittedSheet } from '../scan/trace-protocol.ts';
 import { letterDocument, letterWarnings, type EditableLetter, type LetterWarning } from './letter-document.ts';
@@ -12,8 +12,9 @@ export class LetterEditing {
   readonly letters: readonly EditableLetter[];
   readonly sheet: FittedSheet;
 
-  constructor(sheet: FittedSheet) {
-    const { document, letters } = letterDocument(sheet);
+  /** Editing starts from `start`: by default the fitted letters as fitted; a reopened project passes its saved glyphs. */
+  constructor(sheet: FittedSheet, start: { document: GlyphDocument; letters: EditableLetter[] } = letterDocument(sheet)) {
+    const { document, letters } = start;
     this.sheet = sheet;
     this.letters = letters;
     this.state = createEditorState(document);

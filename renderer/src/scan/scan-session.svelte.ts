@@ -28,10 +28,14 @@ export class ScanSession {
   problem = $state<string | null>(null);
   /** The assigned letters fitted into outlines, or null until "Fit" has run. */
   fitted = $state.raw<FittedSheet | null>(null);
+  /** The scan file the sheet was traced from (its bytes go into the project). */
+  file = $state.raw<File | null>(null);
+  /** The characters last assigned to the sheet's letters, or null before any. */
+  characters = $state<string | null>(null);
   private client: TraceClient | null = null;
 
-  /** Decodes and traces `file`; on failure keeps the previous sheet and shows why. */
-  async open(file: File): Promise<void> {
+  /** Decodes and traces `file`; on failure keeps the previous sheet and shows why. True when it opened. */
+  async open(file: File): Promise<boolean> {
     this.problem = null;
     const previousPhase = this.sheet ? 'traced' : 'idle';
     this.phase = 'decoding';
@@ -48,23 +52,37 @@ export class ScanSession {
       if (this.imageUrl) URL.revokeObjectURL(this.imageUrl);
       this.imageUrl = URL.createObjectURL(file);
       this.fileName = file.name;
+      this.file = file;
+      this.characters = null;
       this.sheet = sheet;
       this.fitted = null;
       this.phase = 'traced';
+      return true;
     } catch (error) {
       this.problem = error instanceof Error ? error.message : String(error);
       this.phase = previousPhase;
+      return false;
     }
   }
 
-  /** Assigns the typed characters to the letters in reading order. */
-  async assign(characters: string): Promise<void> {
-    if (!this.client || !this.sheet) return;
+  /** Assigns the typed characters to the letters in reading order. True when they were assigned. */
+  async assign(characters: string): Promise<boolean> {
+    if (!this.client || !this.sheet) return false;
     try {
       this.sheet = await this.client.assign(characters);
+      this.characters = characters;
+      return true;
     } catch (error) {
       this.problem = error instanceof Error ? error.message : String(error);
+      return false;
     }
+  }
+
+  /** Stops the tracing worker and releases the scan's image; the session is not used afterwards. */
+  dispose(): void {
+    this.client?.dispose();
+    this.client = null;
+    if (this.imageUrl) URL.revokeObjectURL(this.imageUrl);
   }
 
   /**

@@ -1,0 +1,69 @@
+// The project file's contents built from what the user has in the window: the scan
+// (embedded, with the characters assigned on it), every fitted letter's glyph as
+// edited (characters, outline, advance width, which letter of the scan it is), the
+// font's vertical metrics, and — from the project that was opened — every setting
+// and glyph the window does not edit, kept as it was.
+import type { DocumentGlyph, GlyphDocument } from '../../../core/document/index.ts';
+import { outlineToJson } from '../../../core/outline/index.ts';
+import { newProject } from '../../../electron/io/project/new-project.ts';
+import { unicodeHexOf } from '../../../electron/io/project/project-unicodes.ts';
+import type { EmbeddedScan, ProjectData, ProjectGlyph, ProjectScan } from '../../../electron/io/project/project-schema.ts';
+import type { EditableLetter } from '../editor/letter-document.ts';
+
+/** Id of the scan in a project started in the window. */
+export const FIRST_SCAN_ID = 'scan-1';
+
+export interface WindowContent {
+  /** The opened scan: its file name, embedded copy and the characters assigned on it; null before a scan is opened. */
+  readonly scan: { readonly fileName: string; readonly copy: EmbeddedScan; readonly characters: string | null } | null;
+  /** Whether `scan` is the scan of `base` (restored from it), so its entry and glyph settings carry over. */
+  readonly scanFromBase: boolean;
+  /** The fitted letters being edited; null before fitting. */
+  readonly editing: { readonly document: GlyphDocument; readonly letters: readonly EditableLetter[] } | null;
+  /** Glyphs of `base` not drawn from its scan (imported from a font), kept unchanged. */
+  readonly carried: readonly ProjectGlyph[];
+  /** The project that was opened, or null for a new one. */
+  readonly base: ProjectData | null;
+}
+
+function glyphOfLetter(glyph: DocumentGlyph, letter: EditableLetter, scanId: string, saved: ProjectGlyph | undefined): ProjectGlyph {
+  return {
+    unicodes: glyph.unicodes.map((codePoint) => unicodeHexOf(String.fromCodePoint(codePoint))),
+    ...(saved?.name === undefined ? {} : { name: saved.name }),
+    advanceWidth: glyph.advanceWidth,
+    outline: outlineToJson(glyph.outline),
+    source: { scan: scanId, letter: letter.letter.index },
+    ...(saved?.fitOverrides === undefined ? {} : { fitOverrides: saved.fitOverrides }),
+  };
+}
+
+/** The project for `content`. Pure: nothing is read or changed. */
+export function projectContent(content: WindowContent): ProjectData {
+  const start = content.base ?? newProject();
+  const baseScan = content.scanFromBase ? content.base?.scans[0] : undefined;
+  const scanId = baseScan?.id ?? FIRST_SCAN_ID;
+  const scans: ProjectScan[] = [];
+  if (content.scan) {
+    const { characters: _characters, ...kept } = baseScan ?? { id: scanId, path: content.scan.fileName };
+    scans.push({ ...kept, embedded: content.scan.copy, ...(content.scan.characters === null ? {} : { characters: content.scan.characters }) });
+  }
+  const savedGlyph = (letterIndex: number) =>
+    baseScan ? content.base?.glyphs.find((g) => g.source?.scan === scanId && g.source.letter === letterIndex) : undefined;
+  const letterGlyphs = content.editing
+    ? content.editing.letters.flatMap((letter) => {
+        const glyph = content.editing!.document.glyphs[letter.id];
+        return glyph ? [glyphOfLetter(glyph, letter, scanId, savedGlyph(letter.letter.index))] : [];
+      })
+    : [];
+  const metrics = content.editing?.document.metrics;
+  return {
+    format: start.format,
+    formatVersion: start.formatVersion,
+    font: metrics
+      ? { ...start.font, unitsPerEm: metrics.unitsPerEm, capHeight: metrics.capHeight, xHeight: metrics.xHeight, ascender: metrics.ascender, descender: metrics.descender }
+      : start.font,
+    fit: start.fit,
+    scans,
+    glyphs: [...letterGlyphs, ...content.carried],
+  };
+}

@@ -1,0 +1,107 @@
+// Everything the user has made in the window, in one place: the scan session (the
+// traced sheet and its assigned characters), the editing of the fitted letters, and
+// what an opened project holds that the window does not edit. It builds the project
+// file's contents from that state, and restores that state from an opened project.
+import { ScanSession } from '../scan/scan-session.svelte.ts';
+import { LetterEditing } from '../editor/letter-editing.svelte.ts';
+import type { ProjectData, ProjectGlyph } from '../../../electron/io/project/project-schema.ts';
+import { embeddedCopyOf, fileFromCopy } from './scan-copy.ts';
+import { projectContent } from './project-content.ts';
+import { restoredLetters } from './restored-letters.ts';
+
+/** The last part of a project's relative scan path ("scans/capitals.png" → "capitals.png"). */
+function baseName(path: string): string {
+  return path.split('/').pop() || path;
+}
+
+export class Workbench {
+  scan = $state.raw(new ScanSession());
+  editing = $state.raw<LetterEditing | null>(null);
+  /** Glyphs of the opened project not drawn from its scan (imported from a font): kept as they are. */
+  carried = $state.raw<readonly ProjectGlyph[]>([]);
+  /** The project last opened, whose settings the window keeps; null for a new project. */
+  base = $state.raw<ProjectData | null>(null);
+  /** While a project is being opened: the session tracing its scan, shown for progress. */
+  restoring = $state.raw<ScanSession | null>(null);
+  /** The scan file restored from `base`, to tell it from a scan opened since. */
+  private baseScanFile: File | null = null;
+
+  /** Fits the assigned letters in the worker and starts editing them. False when fitting failed (the session says why). */
+  async fitLetters(): Promise<boolean> {
+    if (!(await this.scan.fit()) || !this.scan.fitted) return false;
+    this.editing = new LetterEditing(this.scan.fitted);
+    return true;
+  }
+
+  /**
+   * What the project consists of now, by identity: any change the user makes
+   * replaces one of these (edits make a new glyph table), so comparing the stamp
+   * with the one taken at the last save tells whether there are unsaved changes.
+   */
+  get stamp(): readonly unknown[] {
+    const document = this.editing?.state.document;
+    return [this.scan, this.scan.file, this.scan.characters, this.editing, document?.glyphs, document?.metrics, this.carried, this.base];
+  }
+
+  /** The project file's contents for the current state. */
+  async project(): Promise<ProjectData> {
+    const file = this.scan.file;
+    const editing = this.editing;
+    return projectContent({
+      scan: file ? { fileName: file.name, copy: await embeddedCopyOf(file), characters: this.scan.characters } : null,
+      scanFromBase: file !== null && file === this.baseScanFile,
+      editing: editing ? { document: editing.state.document, letters: editing.letters } : null,
+      carried: this.carried,
+      base: this.base,
+    });
+  }
+
+  /**
+   * Replaces the window's state with `project`: its scan traced again, its characters
+   * assigned, its letters fitted for their place on the scan and given the saved
+   * outlines. Throws an Error for the user when it cannot; the window's state is then
+   * left exactly as it was.
+   */
+  async restore(project: ProjectData, projectName: string): Promise<void> {
+    if (project.scans.length > 1) {
+      throw new Error(`${projectName} holds ${project.scans.length} scans; this version of Stemline edits one scan per project. The file has not been changed.`);
+    }
+    const scan = project.scans[0];
+    const sourced = project.glyphs.filter((g) => g.source !== undefined);
+    const carried = project.glyphs.filter((g) => g.source === undefined);
+    if (sourced.some((g) => g.source?.scan !== scan?.id)) {
+      throw new Error(`${projectName}: a glyph belongs to a scan the project does not list. The file has not been changed; fix it by hand or open its recovery copy.`);
+    }
+    const next = new ScanSession();
+    let editing: LetterEditing | null = null;
+    let file: File | null = null;
+    this.restoring = next;
+    try {
+      if (scan) {
+        if (!scan.embedded) throw new Error(`${projectName}: the host sent the project without its scan. Please report this.`);
+        file = fileFromCopy(scan.embedded, baseName(scan.path));
+        if (!(await next.open(file))) throw new Error(`${projectName}: its scan could not be opened: ${next.problem ?? 'unknown problem'}`);
+        if (scan.characters !== undefined && !(await next.assign(scan.characters))) {
+          throw new Error(`${projectName}: the characters of its scan could not be assigned: ${next.problem ?? 'unknown problem'}`);
+        }
+        if (sourced.length > 0) {
+          if (!(await next.fit()) || !next.fitted) throw new Error(`${projectName}: its letters could not be placed on the scan: ${next.problem ?? 'unknown problem'}`);
+          const restored = restoredLetters(next.fitted, sourced, project.font, projectName);
+          editing = new LetterEditing(restored.sheet, restored);
+        }
+      }
+    } catch (error) {
+      next.dispose();
+      throw error;
+    } finally {
+      this.restoring = null;
+    }
+    const previous = this.scan;
+    this.scan = next;
+    this.editing = editing;
+    this.carried = carried;
+    this.base = project;
+    this.baseScanFile = file;
+    previous.dispose();
+  }
+}
