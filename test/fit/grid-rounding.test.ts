@@ -275,8 +275,10 @@ describe('rounding sloped lines that run smoothly into curves', () => {
       for (const j of r.joins) {
         if (j.cross !== 0) continue;
         expect(j.turn, r.name).toBe(0);
-        // The handle keeps its length within the slide range (3 cells).
-        expect(Math.abs(j.length - r.handle), r.name).toBeLessThanOrEqual(3 + 1e-9);
+        // The handle keeps its length within the slide range (3 cells), or within the
+        // longer search that continues the line (half to twice the length, or 20 cells).
+        expect(j.length, r.name).toBeGreaterThanOrEqual(Math.min(r.handle - 3, 0.5 * r.handle) - 1e-9);
+        expect(j.length, r.name).toBeLessThanOrEqual(Math.max(r.handle + 3, 2 * r.handle, 20) + 1e-9);
       }
     }
     // Measured: 48 of the 108 joins exact; the rounding before this search (the lattice
@@ -287,6 +289,19 @@ describe('rounding sloped lines that run smoothly into curves', () => {
     // of the ideal, and a short direction must then be there by chance.
     const exact = results.flatMap((r) => r.joins).filter((j) => j.cross === 0).length;
     expect(exact).toBeGreaterThanOrEqual(40);
+  });
+
+  it('continues the line within the kink threshold where no exact direction fits, with a longer handle that still fits', () => {
+    // The near-miss kink range is 0.3°–8° (quality-report.ts). Where no short lattice
+    // direction lies within the tolerance, a lattice point farther along the rounded line
+    // continues it within 0.25°; the cubic must still hold the tolerance.
+    const joins = results.flatMap((r) => r.joins.map((j) => ({ ...j, name: r.name, held: r.held })));
+    const kinks = joins.filter((j) => j.turn >= KINK_MIN_DEGREES && j.turn <= 8);
+    // Measured: 17 of the 108 joins still near-miss kinks, all with 5- or 10-unit handles
+    // whose cubic cannot take a longer one within the tolerance of 1 unit (the
+    // nearest-collinear handle alone: 20).
+    expect(joins).toHaveLength(108);
+    expect(kinks.length).toBeLessThanOrEqual(17);
   });
 
   it('puts every coordinate on the grid and leaves its input alone', () => {
