@@ -880,13 +880,12 @@ function unbulgeCornerHandles(contour: FittedContour, ideal: readonly RoundedJoi
     if (j === i) continue;
     const freeOut = independentHandles(nodes[i]!);
     const freeIn = independentHandles(nodes[j]!);
-    if (!freeOut && !freeIn) continue;
     const start = joins[i]!;
     const end = joins[j]!;
     const current = cubic(start.point, start.handleOut!, end.handleIn!, end.point);
     if (protrusion(current) <= EXTREMUM_PROTRUSION_LIMIT || protrusion(fitted) > EXTREMUM_PROTRUSION_LIMIT) continue;
-    const around = (h: Point, free: boolean): Point[] => {
-      if (!free) return [h];
+    const around = (h: Point, free: boolean, p: Point): Point[] => {
+      if (!free) return alongDirection(h, p, grid);
       const out: Point[] = [];
       for (let dx = -UNBULGE_CELLS; dx <= UNBULGE_CELLS; dx++) for (let dy = -UNBULGE_CELLS; dy <= UNBULGE_CELLS; dy++) out.push({ x: h.x + dx * grid, y: h.y + dy * grid });
       return out;
@@ -897,9 +896,9 @@ function unbulgeCornerHandles(contour: FittedContour, ideal: readonly RoundedJoi
     const wantIn = target(ideal[j]!.handleIn!, ideal[j]!.point, end.point);
     const crossedBefore = handlesCross(fitted);
     const options: { segment: CubicSegment; cost: number }[] = [];
-    for (const hOut of around(start.handleOut!, freeOut)) {
+    for (const hOut of around(start.handleOut!, freeOut, start.point)) {
       if (hOut.x === start.point.x && hOut.y === start.point.y) continue;
-      for (const hIn of around(end.handleIn!, freeIn)) {
+      for (const hIn of around(end.handleIn!, freeIn, end.point)) {
         if (hIn.x === end.point.x && hIn.y === end.point.y) continue;
         const segment = cubic(start.point, hOut, hIn, end.point);
         if (protrusion(segment) > EXTREMUM_PROTRUSION_LIMIT || (!crossedBefore && handlesCross(segment))) continue;
@@ -916,6 +915,23 @@ function unbulgeCornerHandles(contour: FittedContour, ideal: readonly RoundedJoi
       break;
     }
   }
+}
+
+/**
+ * A smooth join's handle `h` and the lattice points that keep its exact direction from
+ * the on-curve point `p`: p + m·d for the reduced direction d of h − p, with m one less
+ * or one more than now (never zero). The join stays exactly as smooth as it was; only
+ * the handle's length changes.
+ */
+function alongDirection(h: Point, p: Point, grid: number): Point[] {
+  const vx = Math.round((h.x - p.x) / grid);
+  const vy = Math.round((h.y - p.y) / grid);
+  const g = gcd(Math.abs(vx), Math.abs(vy));
+  if (g === 0) return [h];
+  const d = { x: (vx / g) * grid, y: (vy / g) * grid };
+  const out = [h];
+  for (const m of [g - 1, g + 1]) if (m >= 1) out.push({ x: p.x + m * d.x, y: p.y + m * d.y });
+  return out;
 }
 
 /** Rounding of a join that is not searched: corners, sloped joins with a line, smooth joins between two lines. */

@@ -15,7 +15,8 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { CANTARELL, LIBERTINE, describeWithFont, type ReferenceFont } from '../raster/require-font.ts';
 import { contourSegments } from '../../core/outline/index.ts';
-import { measureRoundTrip, summaryTable, type GlyphMeasurement, type RoundTripFont, type VariantSummary } from './round-trip-measure.ts';
+import { ALL_GLYPHS, DEFAULT_TOLERANCE_PER_PIXEL, measureGlyph, measureRoundTrip, summaryTable, type GlyphMeasurement, type RoundTripFont, type VariantSummary } from './round-trip-measure.ts';
+import { loadFont } from '../raster/reference-render.ts';
 
 const SUBSET = 'aegnosBHRS28';
 
@@ -149,5 +150,21 @@ describeWithFont('drawn roundings of Linux Libertine on a sharp scan at 0.5 px p
       expect(g.edgeBlurPx, g.character).not.toBeNull();
       expect(g.hausdorff, g.character).toBeLessThanOrEqual(4.5);
     }
+  });
+});
+
+describeWithFont('near-vertical stems of Linux Libertine on the rough scan', LIBERTINE, () => {
+  let glyphs: readonly GlyphMeasurement[] = [];
+  beforeAll(() => {
+    // The same rough copies as in the full round trip (each glyph's seed is its place in it).
+    const font = loadFont(LIBERTINE.path);
+    glyphs = [...'jr'].map((c) => measureGlyph('Linux Libertine Regular', font.charToGlyph(c).path.commands, c, 'rough 1 px/unit', { tolerance: DEFAULT_TOLERANCE_PER_PIXEL }, 5000 + ALL_GLYPHS.indexOf(c)));
+  }, 60_000);
+
+  it('leaves no extremum inside the gently bowed stems after rounding to the grid', () => {
+    // Reference: the extremum rule (an x/y extremum sticking out more than 0.5 unit is an
+    // on-curve point). The stems of j and r fit as one shallow cubic between smooth
+    // joins; rounding their handles on their own made the bow stick out 0.65 units.
+    for (const g of glyphs) expect(g.extremaInside, g.character).toBe(0);
   });
 });
