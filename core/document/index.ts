@@ -58,5 +58,6 @@ export {
 export { drawContour, drawStretch, refitSelection, refitStretch, selectedStretch, type Stretch } from './stretch-commands.ts';
 export { drawThrough, type DrawnStretch, type DrawPoint } from './draw-through.ts';
 export { setAdvanceWidth, setLeftSidebearing, setRightSidebearing } from './metrics-commands.ts';
+export { fixWarning, hasFix, type FixableWarningKind } from './warning-fixes.ts';
 export { DEVIATION_SAMPLES_PER_SEGMENT, oneSidedDeviation, shapeDeviation } from './shape-deviation.ts';
 export { FIT_SAMPLES_PER_SEGMENT, fitFewestPieces, fitPiece, sampleStretch, type PieceFit, type StretchRefit, type StretchSample } from './stretch-fit.ts';

@@ -21,6 +21,7 @@ export type UserEvent =
   | 'stretch.draw'
   | 'metrics.sidebearing'
   | 'metrics.advance'
+  | 'warning.fix'
   | 'selection.set';
 
 /**

@@ -5,7 +5,7 @@
  * its current outline plus the fit's tolerance warnings.
  */
 import { createDocument, DEFAULT_FONT_METRICS, type DocumentGlyph, type FontMetrics, type GlyphDocument, type GlyphId } from '../../../core/document/index.ts';
-import { checkOutline } from '../../../core/checks/index.ts';
+import { checkOutline, type OutlineWarning } from '../../../core/checks/index.ts';
 import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, spaceGlyph } from '../../../core/metrics/index.ts';
 import type { Point } from '../../../core/geometry/vector.ts';
 import type { GlyphOutline } from '../../../core/outline/index.ts';
@@ -64,6 +64,8 @@ export interface LetterWarning {
   readonly at: Point;
   readonly message: string;
   readonly source: 'checks' | 'fit';
+  /** The outline check behind a 'checks' warning, for its one-click fix (core/document/warning-fixes.ts). */
+  readonly check?: OutlineWarning;
 }
 
 /**
@@ -72,7 +74,7 @@ export interface LetterWarning {
  * moved into the spaced frame. Check warnings follow edits; the fit's are as fitted.
  */
 export function letterWarnings(outline: GlyphOutline, letter: EditableLetter): LetterWarning[] {
-  const checks: LetterWarning[] = checkOutline(outline).map((w) => ({ kind: w.kind, at: w.at, message: w.message, source: 'checks' }));
+  const checks: LetterWarning[] = checkOutline(outline).map((w) => ({ kind: w.kind, at: w.at, message: w.message, source: 'checks', check: w }));
   const fit: LetterWarning[] = letter.letter.warnings
     .filter((w) => w.kind === 'tolerance-exceeded')
     .map((w) => ({ kind: w.kind, at: { x: w.at.x + letter.shiftX, y: w.at.y }, message: w.message, source: 'fit' }));
