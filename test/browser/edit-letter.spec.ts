@@ -100,4 +100,35 @@ test.describe('editing a letter in the browser', () => {
     await page.keyboard.press('+');
     await expect.poll(() => numberAttribute(page, 'letter-canvas', 'data-scale')).toBeGreaterThan(scale);
   });
+
+  test('inserts a point with a double-click on the outline without changing the shape, and Delete takes it out again', async ({ page }) => {
+    await openFittedSheet(page);
+    await page.getByTestId('letter-thumbnail').filter({ has: page.locator('text=o') }).first().click();
+    const onCurveCount = () => numberAttribute(page, 'letter-status', 'data-on-curve');
+    const before = await onCurveCount();
+    // A place on the outline: just along the first on-curve point's outgoing handle, where
+    // the curve leaves the point along it (its tangent), a fraction of a pixel off it.
+    const point = page.getByTestId('on-curve-point').first();
+    const contour = await point.getAttribute('data-contour');
+    const index = Number(await point.getAttribute('data-point'));
+    const handle = page.locator(`[data-testid="handle"][data-contour="${contour}"][data-point="${index + 1}"]`);
+    const p = (await point.boundingBox())!;
+    const h = (await handle.boundingBox())!;
+    const from = { x: p.x + p.width / 2, y: p.y + p.height / 2 };
+    const to = { x: h.x + h.width / 2, y: h.y + h.height / 2 };
+    const length = Math.hypot(to.x - from.x, to.y - from.y);
+    const along = Math.min(12, length / 2) / length;
+    const outlineBefore = await page.getByTestId('outline').getAttribute('d');
+    await page.mouse.dblclick(from.x + (to.x - from.x) * along, from.y + (to.y - from.y) * along);
+    await expect.poll(onCurveCount).toBe(before + 1);
+    // The new point is selected; an exact split draws the same outline (to the path's rounding).
+    await expect(page.locator('[data-testid="on-curve-point"][data-selected="true"]')).toHaveCount(1);
+    const numbers = (d: string | null) => (d ?? '').match(/-?\d+(\.\d+)?/g)!.map(Number);
+    expect(numbers(await page.getByTestId('outline').getAttribute('d')).length).toBeGreaterThan(numbers(outlineBefore).length);
+    await page.keyboard.press('Delete');
+    await expect.poll(onCurveCount).toBe(before);
+    await expect(page.getByTestId('undo-steps')).toHaveText('2 edits to undo');
+    await page.keyboard.press('Control+z');
+    await expect.poll(onCurveCount).toBe(before + 1);
+  });
 });
