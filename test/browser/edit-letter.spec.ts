@@ -131,4 +131,27 @@ test.describe('editing a letter in the browser', () => {
     await page.keyboard.press('Control+z');
     await expect.poll(onCurveCount).toBe(before + 1);
   });
+
+  test('dragging the advance line sets the advance width in one undo step', async ({ page }) => {
+    await openFittedSheet(page);
+    await page.getByTestId('letter-thumbnail').first().click();
+    const advance = page.locator('[data-testid="sidebearing-line"][data-side="right"]');
+    const origin = page.locator('[data-testid="sidebearing-line"][data-side="left"]');
+    const x0 = Number(await origin.getAttribute('x1'));
+    const x1 = Number(await advance.getAttribute('x1'));
+    const scale = await numberAttribute(page, 'letter-canvas', 'data-scale');
+    const canvas = (await page.getByTestId('letter-canvas').boundingBox())!;
+    const y = canvas.y + canvas.height / 2;
+    await page.mouse.move(canvas.x + x1, y);
+    await page.mouse.down();
+    await page.mouse.move(canvas.x + x1 + 30, y, { steps: 6 });
+    await page.mouse.up();
+    // 30 px at the view's scale, in whole units.
+    const moved = Number(await advance.getAttribute('x1'));
+    expect(moved - x0).toBeGreaterThan(x1 - x0 + 25);
+    expect(Math.abs(moved - (x1 + 30))).toBeLessThanOrEqual(scale + 1);
+    await expect(page.getByTestId('undo-steps')).toHaveText('1 edit to undo');
+    await page.keyboard.press('Control+z');
+    await expect(advance).toHaveAttribute('x1', String(x1));
+  });
 });
