@@ -71,6 +71,33 @@ export interface RecoveredWork {
 }
 
 /**
+ * A font as the renderer assembles it from the project in the window: the font's
+ * settings and its glyphs exactly as a project file holds them (no scans).
+ */
+export interface FontContent {
+  font: ProjectData['font'];
+  glyphs: ProjectData['glyphs'];
+}
+
+/** The proof font the host built in memory. */
+export interface ProofFont {
+  /** The OpenType (CFF) font file's bytes, in standard base64. */
+  base64: string;
+  /** Every character the font maps, each once, in code point order (the space always among them). */
+  characters: string[];
+}
+
+/** Where an exported font was written. */
+export interface ExportedFont {
+  /** The font file's name, e.g. "Harbour Signs.otf". */
+  name: string;
+  /** The full path of the file written. */
+  path: string;
+  /** Whether a file of that name was there before and has been replaced. */
+  replaced: boolean;
+}
+
+/**
  * Every intent the renderer may ask of the host, with its argument and result.
  * Later capabilities add entries here; each must validate its own arguments.
  */
@@ -94,6 +121,13 @@ export interface HostIntents {
   findRecoveredWork: { args: { handle?: ProjectHandle }; result: RecoveredWork | null };
   /** Deletes the autosaved copy of the project `handle` names. */
   discardRecoveredWork: { args: { handle: ProjectHandle }; result: { discarded: boolean } };
+  /** Builds the font for `font` and `glyphs` in memory, for the proof; nothing is written. */
+  buildProofFont: { args: FontContent; result: ProofFont };
+  /**
+   * Writes the font as an .otf file the user chooses now: `name` in the workspace in
+   * browser mode, the save dialog otherwise. Null: the user cancelled.
+   */
+  exportFont: { args: FontContent & { name?: string }; result: ExportedFont | null };
 }
 
 export type IntentName = keyof HostIntents;
@@ -113,6 +147,8 @@ export const INTENT_NAMES = [
   'autosaveProject',
   'findRecoveredWork',
   'discardRecoveredWork',
+  'buildProofFont',
+  'exportFont',
 ] as const satisfies readonly IntentName[];
 
 /** The IPC channel an intent travels on in the Electron shell. */

@@ -13,6 +13,7 @@ import { projectAccess, type HostContext } from './host-context.ts';
 import { realWorkspace, workspacePlaces } from './places/workspace-places.ts';
 import { untitledRecoveryFolder } from './places/app-data-folder.ts';
 import type { IntentName } from './api-contract.ts';
+import { MAX_FONT_ARGUMENT_CHARACTERS } from './font-arguments.ts';
 
 /** Only the loopback interface: the host must never be reachable from another machine. */
 export const LOOPBACK_ADDRESS = '127.0.0.1';
@@ -30,6 +31,16 @@ export const MAX_PROJECT_REQUEST_BYTES = 256 * 1024 * 1024;
 
 /** The intents whose body is a project. */
 const PROJECT_CARRYING: ReadonlySet<string> = new Set<IntentName>(['saveProject', 'saveProjectAs', 'autosaveProject']);
+
+/** The intents whose body is a font's glyphs, taken up to MAX_FONT_ARGUMENT_CHARACTERS bytes (font-arguments.ts). */
+const FONT_CARRYING: ReadonlySet<string> = new Set<IntentName>(['buildProofFont', 'exportFont']);
+
+/** The largest request body taken for `intent`. */
+function bodyLimitFor(intent: string): number {
+  if (PROJECT_CARRYING.has(intent)) return MAX_PROJECT_REQUEST_BYTES;
+  if (FONT_CARRYING.has(intent)) return MAX_FONT_ARGUMENT_CHARACTERS;
+  return MAX_REQUEST_BYTES;
+}
 
 /** Where the browser host keeps projects. */
 export interface BrowserHostPlaces {
@@ -124,10 +135,10 @@ async function answerIntent(intent: string, context: HostContext, request: Incom
   }
   let args: unknown;
   try {
-    args = JSON.parse((await readBody(request, PROJECT_CARRYING.has(intent) ? MAX_PROJECT_REQUEST_BYTES : MAX_REQUEST_BYTES)) || 'null');
+    args = JSON.parse((await readBody(request, bodyLimitFor(intent))) || 'null');
   } catch (error) {
     if (error instanceof BodyTooLarge) {
-      sendJson(response, 413, { error: { kind: 'bad-arguments', message: `The request is larger than the ${error.limit / 2 ** 20} MiB the browser host takes, so it was refused. A project this large needs smaller scans (a lower resolution or a cropped sheet).` } });
+      sendJson(response, 413, { error: { kind: 'bad-arguments', message: `The request is larger than the ${error.limit / 2 ** 20} MiB the browser host takes, so it was refused. ${FONT_CARRYING.has(intent) ? 'A font this large needs fewer points: refit its most detailed glyphs with a larger tolerance.' : 'A project this large needs smaller scans (a lower resolution or a cropped sheet).'}` } });
       return;
     }
     sendJson(response, 400, { error: { kind: 'bad-arguments', message: 'The request body was not valid JSON.' } });

@@ -12,8 +12,10 @@ export type HandlerErrorKind =
   | 'path-refused'
   /** A project handle the host never gave, or has forgotten (it restarted). */
   | 'project-unknown'
-  /** A project file could not be read or written; the message says why. */
-  | 'project-file';
+  /** A project file (or an exported font) could not be read or written; the message says why. */
+  | 'project-file'
+  /** The project's glyphs cannot make a valid font; the message names the glyph or value to change. */
+  | 'font-build';
 
 export class HandlerError extends Error {
   readonly kind: HandlerErrorKind;

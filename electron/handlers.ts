@@ -7,6 +7,8 @@ import { INTENT_NAMES, type AppInfo, type HostIntents, type IntentName } from '.
 import { HandlerError } from './handler-error.ts';
 import type { HostContext } from './host-context.ts';
 import { projectArguments } from './project-arguments.ts';
+import { fontArguments } from './font-arguments.ts';
+import { buildProofFont, exportFont } from './font-handlers.ts';
 import { autosaveProject, discardRecoveredWork, findRecoveredWork, listProjects, openProject, saveProject, saveProjectAs } from './project-handlers.ts';
 
 export type { HostContext } from './host-context.ts';
@@ -31,6 +33,8 @@ const HANDLERS: HandlerTable = {
   autosaveProject,
   findRecoveredWork,
   discardRecoveredWork,
+  buildProofFont,
+  exportFont,
 };
 
 /** Argument checks per intent; each returns the validated arguments or throws. */
@@ -43,6 +47,8 @@ const VALIDATORS: { [K in IntentName]: (raw: unknown) => HostIntents[K]['args'] 
   autosaveProject: (raw) => projectArguments('autosaveProject', raw),
   findRecoveredWork: (raw) => projectArguments('findRecoveredWork', raw),
   discardRecoveredWork: (raw) => projectArguments('discardRecoveredWork', raw),
+  buildProofFont: (raw) => fontArguments('buildProofFont', raw),
+  exportFont: (raw) => fontArguments('exportFont', raw),
 };
 
 function expectEmptyObject(intent: string, raw: unknown): Record<string, never> {

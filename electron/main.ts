@@ -13,9 +13,13 @@ import { projectAccess, type ProjectAccess } from './host-context.ts';
 import { dialogPlaces } from './places/dialog-places.ts';
 import { untitledRecoveryFolder } from './places/app-data-folder.ts';
 import { PROJECT_EXTENSION } from './io/project/project-schema.ts';
+import { FONT_FILE_EXTENSION } from './io/font/write-font-file.ts';
 
 /** The file-type filter of the project dialogs. */
 const PROJECT_FILTERS = [{ name: `${APP_NAME} project`, extensions: [PROJECT_EXTENSION.slice(1)] }];
+
+/** The file-type filter of the font export dialog. */
+const FONT_FILTERS = [{ name: 'OpenType font', extensions: [FONT_FILE_EXTENSION.slice(1)] }];
 
 /** Each window's project access: its dialogs and the paths its user answered. */
 const accessByWindow = new Map<number, ProjectAccess>();
@@ -34,6 +38,12 @@ function accessFor(contents: WebContents): ProjectAccess {
       },
       showSave: async (suggestedName) => {
         const options = { defaultPath: suggestedName, filters: PROJECT_FILTERS };
+        const window = parent();
+        const answer = window ? await dialog.showSaveDialog(window, options) : await dialog.showSaveDialog(options);
+        return answer.canceled ? null : (answer.filePath || null);
+      },
+      showExportFont: async (suggestedName) => {
+        const options = { title: 'Export the font', defaultPath: suggestedName, filters: FONT_FILTERS };
         const window = parent();
         const answer = window ? await dialog.showSaveDialog(window, options) : await dialog.showSaveDialog(options);
         return answer.canceled ? null : (answer.filePath || null);

@@ -29,6 +29,8 @@ const stemlineHostApi = {
   autosaveProject: (args) => callHost('autosaveProject', args),
   findRecoveredWork: (args) => callHost('findRecoveredWork', args),
   discardRecoveredWork: (args) => callHost('discardRecoveredWork', args),
+  buildProofFont: (args) => callHost('buildProofFont', args),
+  exportFont: (args) => callHost('exportFont', args),
 } satisfies import('./api-contract.ts').StemlineHostApi;
 
 contextBridge.exposeInMainWorld('stemline', stemlineHostApi);

@@ -10,6 +10,7 @@ import { projectSchema, type ProjectData } from './io/project/project-schema.ts'
 import { MAX_PROJECT_BYTES } from './io/project/project-file.ts';
 import { embeddedScanBytes } from './io/project/embedded-scan.ts';
 import type { HostIntents, IntentName } from './api-contract.ts';
+import { exceedsJsonSize } from './json-size.ts';
 
 const handleSchema = v.pipe(v.string(), v.regex(HANDLE_PATTERN, 'a project handle the host gave'));
 const nameSchema = v.pipe(v.string(), v.minLength(1, 'a file name'), v.maxLength(MAX_FILE_NAME_LENGTH, `a file name of at most ${MAX_FILE_NAME_LENGTH} characters`));
@@ -29,42 +30,6 @@ type ProjectIntent = keyof typeof SCHEMAS;
 
 function refused(intent: IntentName, where: string, problem: string): HandlerError {
   return new HandlerError('bad-arguments', `The request "${intent}" was refused: ${where} is wrong (${problem}). This is a bug in the app: please report it.`);
-}
-
-/** Characters a number, boolean or null may take in JSON, at most (a double's longest spelling, about 24). */
-const SCALAR_JSON_CHARACTERS = 24;
-
-/**
- * Whether `raw` would take more than `limit` characters as JSON, estimated from above
- * by walking it (strings by length, every value, key and separator counted) and
- * stopping as soon as the limit is passed, so a huge argument costs little to refuse.
- * Shared or cyclic parts (possible through structured clone) count once per visit
- * of the object holding them, and a cycle is walked once.
- */
-function exceedsJsonSize(raw: unknown, limit: number): boolean {
-  let total = 0;
-  const seen = new Set<object>();
-  const pending: unknown[] = [raw];
-  while (pending.length > 0) {
-    const value = pending.pop();
-    if (typeof value === 'string') total += value.length + 2;
-    else if (typeof value !== 'object' || value === null) total += SCALAR_JSON_CHARACTERS;
-    else if (seen.has(value)) total += SCALAR_JSON_CHARACTERS;
-    else {
-      seen.add(value);
-      if (Array.isArray(value)) {
-        total += value.length + 2;
-        for (const item of value) pending.push(item);
-      } else {
-        for (const [key, item] of Object.entries(value)) {
-          total += key.length + 4;
-          pending.push(item);
-        }
-      }
-    }
-    if (total > limit) return true;
-  }
-  return false;
 }
 
 /**

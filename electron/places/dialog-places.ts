@@ -1,4 +1,5 @@
-// The desktop app's project places: the operating system's open and save dialogs.
+// The desktop app's project places: the operating system's open and save dialogs
+// (a save dialog of its own for exporting the font).
 // The dialogs themselves are passed in (electron/main.ts wires Electron's `dialog`),
 // so this logic runs and is tested in plain Node. A file name sent by the page is
 // refused: in the desktop app only a dialog the user answered names a file.
@@ -7,17 +8,20 @@ import { HandlerError } from '../handler-error.ts';
 import { PROJECT_EXTENSION } from '../io/project/project-schema.ts';
 import type { ProjectPlaces } from './project-places.ts';
 import { hasProjectExtension } from './workspace-files.ts';
+import { FONT_FILE_EXTENSION } from '../io/font/write-font-file.ts';
 
 /** The file dialogs: each resolves to the absolute path the user answered, or null when they cancelled. */
 export interface ProjectDialogs {
   showOpen(): Promise<string | null>;
   showSave(suggestedName: string): Promise<string | null>;
+  /** The save dialog for exporting the font (its file-type filter: OpenType fonts). */
+  showExportFont(suggestedName: string): Promise<string | null>;
 }
 
 export function dialogPlaces(dialogs: ProjectDialogs): ProjectPlaces {
   const refuseName = (name: string | undefined): void => {
     if (name !== undefined) {
-      throw new HandlerError('path-refused', 'In the desktop app a project file is chosen in the file dialog, but the app sent a file name instead. This is a bug in the app: please report it.');
+      throw new HandlerError('path-refused', 'In the desktop app files are chosen in the file dialog, but the app sent a file name instead. This is a bug in the app: please report it.');
     }
   };
   const answered = (path: string | null): string | null => {
@@ -34,6 +38,11 @@ export function dialogPlaces(dialogs: ProjectDialogs): ProjectPlaces {
       refuseName(name);
       const path = answered(await dialogs.showSave(suggestedName));
       return path === null || hasProjectExtension(path) ? path : `${path}${PROJECT_EXTENSION}`;
+    },
+    chooseToExportFont: async (name, suggestedName) => {
+      refuseName(name);
+      const path = answered(await dialogs.showExportFont(suggestedName));
+      return path === null || path.toLowerCase().endsWith(FONT_FILE_EXTENSION) ? path : `${path}${FONT_FILE_EXTENSION}`;
     },
   };
 }

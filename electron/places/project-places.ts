@@ -1,4 +1,4 @@
-// How the user names a project file in this host. The desktop app asks through the
+// How the user names a project file (or the file a font is exported to) in this host. The desktop app asks through the
 // operating system's file dialogs; browser mode, which has no native dialog, lets the
 // page choose a file name from its workspace folder. Either way the renderer never
 // hands the host a path: it gets only the paths a dialog answered or that lie in the
@@ -20,4 +20,10 @@ export interface ProjectPlaces {
    * null when they cancelled. `suggestedName` is offered in a dialog.
    */
   chooseToSave(name: string | undefined, suggestedName: string): Promise<string | null>;
+  /**
+   * The absolute path the user chose to export the font to (ending in ".otf"), or
+   * null when they cancelled; the same rules as saving a project. `suggestedName` is
+   * offered in a dialog.
+   */
+  chooseToExportFont(name: string | undefined, suggestedName: string): Promise<string | null>;
 }

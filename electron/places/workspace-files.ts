@@ -1,6 +1,6 @@
-// Project files inside the browser-mode workspace: the one folder the browser host
-// was started in. The page names a project by its bare file name; this resolves the
-// name inside the workspace and refuses anything that would leave it — folders,
+// Project files (and exported fonts) inside the browser-mode workspace: the one
+// folder the browser host was started in. The page names a file by its bare name;
+// this resolves the name inside the workspace and refuses anything that would leave it — folders,
 // "..", absolute paths, and symlinks whose target lies outside — with a message
 // saying what to do instead. The checks run just before each use; a file swapped for
 // a link in the instant between check and write is not guarded against (the
@@ -19,24 +19,46 @@ export const MAX_LISTED_PROJECTS = 1000;
 /** Characters a bare file name may not hold: separators of every system, the Windows drive colon, and control characters. */
 const FORBIDDEN_IN_NAME = /[/\\:\u0000-\u001f\u007f]/;
 
+/** Whether `name` is spelled like a file with `extension` (in any case), with something before it. */
+function hasExtension(name: string, extension: string): boolean {
+  return name.toLowerCase().endsWith(extension) && name.length > extension.length;
+}
+
 /** Whether `name` is spelled like a project file (the extension in any case). */
 export function hasProjectExtension(name: string): boolean {
-  return name.toLowerCase().endsWith(PROJECT_EXTENSION) && name.length > PROJECT_EXTENSION.length;
+  return hasExtension(name, PROJECT_EXTENSION);
 }
+
+/** A kind of file the page may name in the workspace: how it ends, and what to call it in messages. */
+export interface WorkspaceFileKind {
+  readonly extension: string;
+  /** "project file", "font file". */
+  readonly noun: string;
+}
+
+export const PROJECT_FILE: WorkspaceFileKind = { extension: PROJECT_EXTENSION, noun: 'project file' };
 
 /**
  * `name` checked as a bare project file name, with the extension added when
  * `addExtension` is set and it has none. Throws HandlerError 'path-refused'.
  */
 export function checkedProjectName(name: string, folderName: string, addExtension: boolean): string {
+  return checkedFileName(name, folderName, addExtension, PROJECT_FILE);
+}
+
+/**
+ * `name` checked as a bare file name of `kind`, with its extension added when
+ * `addExtension` is set and it has none. Throws HandlerError 'path-refused'.
+ */
+export function checkedFileName(name: string, folderName: string, addExtension: boolean, kind: WorkspaceFileKind): string {
   const refuse = (why: string) =>
-    new HandlerError('path-refused', `"${name.length > 80 ? `${name.slice(0, 80)}…` : name}" was refused: ${why}. Choose a project file directly inside the workspace folder "${folderName}".`);
+    new HandlerError('path-refused', `"${name.length > 80 ? `${name.slice(0, 80)}…` : name}" was refused: ${why}. Choose a ${kind.noun} directly inside the workspace folder "${folderName}".`);
   if (name.length === 0) throw refuse('the name is empty');
   if (name.length > MAX_FILE_NAME_LENGTH) throw refuse(`a file name has at most ${MAX_FILE_NAME_LENGTH} characters`);
   if (isAbsolute(name) || FORBIDDEN_IN_NAME.test(name)) throw refuse('it names a path or a folder, not a file in the workspace');
   if (name === '.' || name === '..' || name.startsWith('.')) throw refuse('names starting with "." are hidden or lead out of the folder');
-  const withExtension = hasProjectExtension(name) ? name : addExtension ? `${name}${PROJECT_EXTENSION}` : null;
-  if (withExtension === null) throw refuse(`a project file's name ends in "${PROJECT_EXTENSION}"`);
+  const withExtension = hasExtension(name, kind.extension) ? name : addExtension ? `${name}${kind.extension}` : null;
+  if (withExtension === null) throw refuse(`a ${kind.noun}'s name ends in "${kind.extension}"`);
   if (withExtension.length > MAX_FILE_NAME_LENGTH) throw refuse(`a file name has at most ${MAX_FILE_NAME_LENGTH} characters`);
   return withExtension;
 }
@@ -52,11 +74,13 @@ function isInside(folder: string, path: string): boolean {
  * the file must be there and be a file. A symlink is followed only when its target
  * is inside the workspace. Throws HandlerError 'path-refused'.
  */
-export async function resolveWorkspaceFile(workspace: string, name: string, mustExist: boolean): Promise<string> {
+export async function resolveWorkspaceFile(workspace: string, name: string, mustExist: boolean, kind: WorkspaceFileKind = PROJECT_FILE): Promise<string> {
   const folderName = basename(workspace);
   const path = join(workspace, name);
   const outside = () =>
-    new HandlerError('path-refused', `"${name}" is a link to a file outside the workspace folder "${folderName}", and Stemline opens and saves projects only inside it. Copy the project into the folder instead.`);
+    kind === PROJECT_FILE
+      ? new HandlerError('path-refused', `"${name}" is a link to a file outside the workspace folder "${folderName}", and Stemline opens and saves projects only inside it. Copy the project into the folder instead.`)
+      : new HandlerError('path-refused', `"${name}" is a link to a file outside the workspace folder "${folderName}", and Stemline writes files only inside it. Choose another name.`);
   let link;
   try {
     link = await lstat(path);
@@ -75,7 +99,7 @@ export async function resolveWorkspaceFile(workspace: string, name: string, must
     if (!isInside(workspace, target)) throw outside();
   }
   const info = await stat(target);
-  if (!info.isFile()) throw new HandlerError('path-refused', `"${name}" in the workspace folder "${folderName}" is not a file. Choose a project file.`);
+  if (!info.isFile()) throw new HandlerError('path-refused', `"${name}" in the workspace folder "${folderName}" is not a file. Choose a ${kind.noun}.`);
   return target;
 }
 

@@ -1,12 +1,17 @@
 // Browser mode's project places: the workspace folder the browser host was started
 // in (`npm start` passes the current directory or a folder named on the command
 // line). The page lists its project files and sends back a chosen name, which is
-// resolved inside the folder (workspace-files.ts); there are no other places.
+// resolved inside the folder (workspace-files.ts); fonts are exported there too, under
+// a name the page chooses. There are no other places.
 import { realpath, stat } from 'node:fs/promises';
 import { basename } from 'node:path';
 import { HandlerError } from '../handler-error.ts';
 import type { ProjectPlaces } from './project-places.ts';
-import { checkedProjectName, listWorkspaceProjects, resolveWorkspaceFile } from './workspace-files.ts';
+import { checkedFileName, checkedProjectName, listWorkspaceProjects, resolveWorkspaceFile, type WorkspaceFileKind } from './workspace-files.ts';
+import { FONT_FILE_EXTENSION } from '../io/font/write-font-file.ts';
+
+/** An exported font in the workspace. */
+const FONT_FILE: WorkspaceFileKind = { extension: FONT_FILE_EXTENSION, noun: 'font file' };
 
 /** Checks that `folder` is a folder and returns its real path; the message says what to pass instead. */
 export async function realWorkspace(folder: string): Promise<string> {
@@ -31,5 +36,6 @@ export function workspacePlaces(workspace: string): ProjectPlaces {
     list: async () => ({ kind: 'workspace', folderName, projects: await listWorkspaceProjects(workspace) }),
     chooseToOpen: async (name) => resolveWorkspaceFile(workspace, checkedProjectName(requireName(name, 'opening a project'), folderName, false), true),
     chooseToSave: async (name) => resolveWorkspaceFile(workspace, checkedProjectName(requireName(name, 'saving a project'), folderName, true), false),
+    chooseToExportFont: async (name) => resolveWorkspaceFile(workspace, checkedFileName(requireName(name, 'exporting the font'), folderName, true, FONT_FILE), false, FONT_FILE),
   };
 }

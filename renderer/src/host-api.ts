@@ -50,6 +50,8 @@ const browserHostApi: StemlineHostApi = {
   autosaveProject: (args) => postIntent('autosaveProject', args),
   findRecoveredWork: (args) => postIntent('findRecoveredWork', args),
   discardRecoveredWork: (args) => postIntent('discardRecoveredWork', args),
+  buildProofFont: (args) => postIntent('buildProofFont', args),
+  exportFont: (args) => postIntent('exportFont', args),
 };
 
 /** The host API for this window: the preload bridge in Electron, HTTP in a browser. */

@@ -154,4 +154,56 @@ test.describe('editing a letter in the browser', () => {
     await page.keyboard.press('Control+z');
     await expect(advance).toHaveAttribute('x1', String(x1));
   });
+
+  test('turns a smooth point into a corner, shows the kink a small handle drag makes, and fixes it in one click', async ({ page }) => {
+    await openFittedSheet(page);
+    await page.getByTestId('letter-thumbnail').filter({ has: page.locator('text=o') }).first().click();
+    const point = page.getByTestId('on-curve-point').first();
+    const contour = await point.getAttribute('data-contour');
+    const index = Number(await point.getAttribute('data-point'));
+    const the = page.locator(`[data-testid="on-curve-point"][data-contour="${contour}"][data-point="${index}"]`);
+    await expect(the).toHaveAttribute('data-role', 'smooth');
+    const p = (await the.boundingBox())!;
+    await page.mouse.click(p.x + p.width / 2, p.y + p.height / 2);
+    await page.getByTestId('command-smooth').click();
+    await expect(the).toHaveAttribute('data-role', 'corner');
+    // Turn the outgoing handle by a few degrees: neither smooth nor a corner.
+    const handle = page.locator(`[data-testid="handle"][data-contour="${contour}"][data-point="${index + 1}"]`);
+    const h = (await handle.boundingBox())!;
+    const from = { x: p.x + p.width / 2, y: p.y + p.height / 2 };
+    const at = { x: h.x + h.width / 2, y: h.y + h.height / 2 };
+    const length = Math.hypot(at.x - from.x, at.y - from.y);
+    const across = { x: -(at.y - from.y) / length, y: (at.x - from.x) / length };
+    const shift = length * Math.tan((4 * Math.PI) / 180); // 4°, inside the 0.3°–8° kink range
+    await page.mouse.click(at.x, at.y);
+    await page.mouse.move(at.x, at.y);
+    await page.mouse.down();
+    await page.mouse.move(at.x + across.x * shift, at.y + across.y * shift, { steps: 4 });
+    await page.mouse.up();
+    const kinkFix = page.locator('[data-testid="warning-fix"][data-kind="near-miss-kink"]');
+    await expect(kinkFix).toHaveCount(1);
+    await kinkFix.click();
+    await expect(page.locator('[data-testid="warning-item"][data-kind="near-miss-kink"]')).toHaveCount(0);
+    await expect(the).toHaveAttribute('data-role', 'smooth');
+  });
+
+  test('sets the advance width and sidebearings from the spacing fields', async ({ page }) => {
+    await openFittedSheet(page);
+    await page.getByTestId('letter-thumbnail').first().click();
+    const advance = page.getByTestId('spacing-advance');
+    const right = page.getByTestId('spacing-right');
+    const left = page.getByTestId('spacing-left');
+    const a = Number(await advance.inputValue());
+    const r = Number(await right.inputValue());
+    const l = Number(await left.inputValue());
+    await advance.fill(String(a + 20));
+    await advance.press('Enter');
+    await expect(right).toHaveValue(String(r + 20));
+    await left.fill(String(l + 10));
+    await left.press('Enter');
+    // The left sidebearing moves the outline and the advance with it; the right one stays.
+    await expect(advance).toHaveValue(String(a + 30));
+    await expect(right).toHaveValue(String(r + 20));
+    await expect(page.getByTestId('undo-steps')).toHaveText('2 edits to undo');
+  });
 });

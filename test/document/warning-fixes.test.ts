@@ -33,7 +33,7 @@ describe('fixing warnings', () => {
       if (s.kind !== 'cubic') return [];
       const b = new Bezier(s.p0.x, s.p0.y, s.p1.x, s.p1.y, s.p2.x, s.p2.y, s.p3.x, s.p3.y);
       const e = b.extrema();
-      return [...e.x.map((t) => ({ axis: 'x' as const, ...b.get(t) })), ...e.y.map((t) => ({ axis: 'y' as const, ...b.get(t) }))];
+      return [...e.x.map((t) => ({ axis: 'x' as const, ...b.compute(t) })), ...e.y.map((t) => ({ axis: 'y' as const, ...b.compute(t) }))];
     }).find((p) => Math.hypot(p.x - warning.at.x, p.y - warning.at.y) < 1)!;
     expect(reference).toBeDefined();
 

@@ -52,7 +52,7 @@ export function browserHostFixture(): ProjectHostFixture {
 }
 
 /** Desktop mode: each dialog call takes the next scripted answer (null: the user cancelled). */
-export function desktopHostFixture(answers: { open: (string | null)[]; save: (string | null)[] }): ProjectHostFixture & { suggested: string[] } {
+export function desktopHostFixture(answers: { open: (string | null)[]; save: (string | null)[]; exportFont?: (string | null)[] }): ProjectHostFixture & { suggested: string[] } {
   const base = folders();
   const suggested: string[] = [];
   const places = dialogPlaces({
@@ -60,6 +60,10 @@ export function desktopHostFixture(answers: { open: (string | null)[]; save: (st
     showSave: async (name) => {
       suggested.push(name);
       return answers.save.shift() ?? null;
+    },
+    showExportFont: async (name) => {
+      suggested.push(name);
+      return answers.exportFont?.shift() ?? null;
     },
   });
   return { ...withCall({ ...base, context: { host: 'electron', projects: projectAccess(places, base.untitledFolder) } }), suggested };

@@ -5,6 +5,9 @@ import { writeFileAtomic } from '../atomic-write.ts';
 import type { FontSource } from './font-model.ts';
 import { writeOtf } from './write-font.ts';
 
+/** The extension of the font files written: OpenType with CFF outlines (OpenType spec, "Filenames": .otf). */
+export const FONT_FILE_EXTENSION = '.otf';
+
 /**
  * Writes `source` as an OpenType CFF font to `path`, replacing any file there.
  * Throws FontError for a source that cannot make a valid font (nothing is written

@@ -12,8 +12,12 @@ export function glyphCharacters(glyph: ProjectGlyph): string[] {
   return glyph.unicodes.map(characterOfUnicodeHex);
 }
 
-/** The font source for `project` (validated; not modified). Outline errors are OutlineError. */
-export function fontSourceFromProject(project: ProjectData): FontSource {
+/**
+ * The font source for `project` (validated; not modified): only its font settings and
+ * glyphs are read, so a project without its scans serves as well. Outline errors are
+ * OutlineError.
+ */
+export function fontSourceFromProject(project: Pick<ProjectData, 'font' | 'glyphs'>): FontSource {
   const glyphs = project.glyphs.map((glyph): FontGlyph => {
     const characters = glyphCharacters(glyph);
     return {

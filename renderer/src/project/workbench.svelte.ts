@@ -5,6 +5,7 @@
 import { ScanSession } from '../scan/scan-session.svelte.ts';
 import { LetterEditing } from '../editor/letter-editing.svelte.ts';
 import type { ProjectData, ProjectGlyph } from '../../../electron/io/project/project-schema.ts';
+import type { FontContent } from '../../../electron/api-contract.ts';
 import { embeddedCopyOf, fileFromCopy } from './scan-copy.ts';
 import { projectContent } from './project-content.ts';
 import { restoredLetters } from './restored-letters.ts';
@@ -54,6 +55,26 @@ export class Workbench {
       carried: this.carried,
       base: this.base,
     });
+  }
+
+  /**
+   * The font the project in the window makes, for the proof and the export: the
+   * project's font settings and glyphs exactly as `project()` gives them, without
+   * reading or embedding the scan, so it is cheap enough to take after every edit.
+   * Null before any letter is fitted or carried.
+   */
+  fontContent(): FontContent | null {
+    const file = this.scan.file;
+    const editing = this.editing;
+    if (editing === null && this.carried.length === 0) return null;
+    const project = projectContent({
+      scan: null,
+      scanFromBase: file !== null && file === this.baseScanFile,
+      editing: editing ? { document: editing.state.document, letters: editing.letters } : null,
+      carried: this.carried,
+      base: this.base,
+    });
+    return { font: project.font, glyphs: project.glyphs };
   }
 
   /**
