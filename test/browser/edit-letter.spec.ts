@@ -206,4 +206,28 @@ test.describe('editing a letter in the browser', () => {
     await expect(right).toHaveValue(String(r + 20));
     await expect(page.getByTestId('undo-steps')).toHaveText('2 edits to undo');
   });
+
+  test('draws a new contour through clicked points, and undo takes it away', async ({ page }) => {
+    await openFittedSheet(page);
+    await page.getByTestId('letter-thumbnail').filter({ has: page.locator('text=o') }).first().click();
+    const status = page.getByTestId('letter-status');
+    await expect(status).toContainText('2 contours');
+    await page.getByTestId('draw-through').click();
+    await expect(page.getByTestId('letter-canvas')).toHaveAttribute('data-drawing', 'true');
+    const box = (await page.getByTestId('letter-canvas').boundingBox())!;
+    // A small diamond near the drawing area's top-left corner, clear of the letter; one corner (shift).
+    const c = { x: box.x + 60, y: box.y + 60 };
+    await page.mouse.click(c.x, c.y - 20);
+    await page.mouse.click(c.x + 20, c.y);
+    await page.keyboard.down('Shift');
+    await page.mouse.click(c.x, c.y + 20);
+    await page.keyboard.up('Shift');
+    await page.mouse.click(c.x - 20, c.y);
+    await expect(page.getByTestId('drawn-point')).toHaveCount(4);
+    await page.keyboard.press('Enter');
+    await expect(status).toContainText('3 contours');
+    await expect(page.getByTestId('letter-canvas')).toHaveAttribute('data-drawing', 'false');
+    await page.keyboard.press('Control+z');
+    await expect(status).toContainText('2 contours');
+  });
 });
