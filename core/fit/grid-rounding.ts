@@ -736,21 +736,11 @@ function alignSlopedLines(contour: FittedContour, ideal: readonly RoundedJoin[],
       const found: { handle: Point; miss: number }[] = [];
       const first = Math.max(1, Math.floor((LONG_HANDLE_MIN_SHARE * idealLength) / grid));
       const last = Math.ceil(Math.max(LONG_HANDLE_MAX_SHARE * idealLength, LONG_HANDLE_MIN_REACH_CELLS * grid) / grid);
-      for (let k = first; k <= last; k++) {
-        const cx = snap(point.x + ux * k * grid);
-        const cy = snap(point.y + uy * k * grid);
-        for (let dx = -1; dx <= 1; dx++) {
-          for (let dy = -1; dy <= 1; dy++) {
-            const h = { x: cx + dx * grid, y: cy + dy * grid };
-            const vx = h.x - point.x;
-            const vy = h.y - point.y;
-            const l = Math.hypot(vx, vy);
-            if (l === 0 || vx * ux + vy * uy <= 0) continue;
-            if (Math.abs(vx * uy - vy * ux) / l > maxSine) continue;
-            if (found.some((f) => f.handle.x === h.x && f.handle.y === h.y)) continue;
-            found.push({ handle: h, miss: Math.abs(l - idealLength) });
-          }
-        }
+      const lengths = Array.from({ length: last - first + 1 }, (_, i) => (first + i) * grid);
+      for (const c of latticeAlongRay(point, { x: ux, y: uy }, lengths, grid, snap)) {
+        if (c.sine > maxSine) continue;
+        if (found.some((f) => f.handle.x === c.handle.x && f.handle.y === c.handle.y)) continue;
+        found.push({ handle: c.handle, miss: Math.abs(c.length - idealLength) });
       }
       found.sort((x, y) => x.miss - y.miss);
       const limit = Math.max(0, ...segmentExtrema(fittedCubic).map((x) => x.protrusion), EXTREMUM_PROTRUSION_LIMIT);
@@ -1009,6 +999,28 @@ const SLOPED_HANDLE_MAX_SHARE = 1.15;
 const COLLINEAR_SINE = 1e-3;
 
 /**
+ * Lattice points within a cell of the ray from `point` along the unit `direction`, at
+ * each of `lengths` (the 3 × 3 cells round the rounded ray point), ahead of the point,
+ * with their length and the sine of their angle to the ray.
+ */
+function* latticeAlongRay(point: Point, direction: Vec, lengths: readonly number[], grid: number, snap: (v: number) => number): Generator<{ handle: Point; length: number; sine: number }> {
+  for (const along of lengths) {
+    const cx = snap(point.x + direction.x * along);
+    const cy = snap(point.y + direction.y * along);
+    for (let dx = -1; dx <= 1; dx++) {
+      for (let dy = -1; dy <= 1; dy++) {
+        const handle = { x: cx + dx * grid, y: cy + dy * grid };
+        const vx = handle.x - point.x;
+        const vy = handle.y - point.y;
+        const length = Math.hypot(vx, vy);
+        if (length === 0 || vx * direction.x + vy * direction.y <= 0) continue;
+        yield { handle, length, sine: Math.abs(vx * direction.y - vy * direction.x) / length };
+      }
+    }
+  }
+}
+
+/**
  * The grid point whose direction from the on-curve point best continues `direction`
  * (which points from the point into the line for an incoming handle, sign −1): among
  * lattice points within a cell of the line and 85–115 % of the ideal handle length,
@@ -1022,25 +1034,13 @@ function bestHandleOnDirection(point: Point, handle: Point, originalPoint: Point
   const steps = Math.max(1, Math.ceil(((SLOPED_HANDLE_MAX_SHARE - SLOPED_HANDLE_MIN_SHARE) * idealLength) / grid));
   let best = { x: snap(ideal.x), y: snap(ideal.y) };
   let bestScore = Infinity;
-  for (let k = 0; k <= steps; k++) {
-    const along = (SLOPED_HANDLE_MIN_SHARE + ((SLOPED_HANDLE_MAX_SHARE - SLOPED_HANDLE_MIN_SHARE) * k) / steps) * idealLength;
-    const cx = snap(point.x + want.x * along);
-    const cy = snap(point.y + want.y * along);
-    for (let dx = -1; dx <= 1; dx++) {
-      for (let dy = -1; dy <= 1; dy++) {
-        const h = { x: cx + dx * grid, y: cy + dy * grid };
-        const vx = h.x - point.x;
-        const vy = h.y - point.y;
-        const l = Math.hypot(vx, vy);
-        if (l === 0 || (vx * want.x + vy * want.y) / l <= 0) continue;
-        const sine = Math.abs(vx * want.y - vy * want.x) / l;
-        const lengthCost = Math.abs(l - idealLength) / Math.max(idealLength, grid);
-        const score = sine <= COLLINEAR_SINE ? lengthCost : 1 + sine * 1e3 + lengthCost;
-        if (score < bestScore) {
-          bestScore = score;
-          best = h;
-        }
-      }
+  const lengths = Array.from({ length: steps + 1 }, (_, k) => (SLOPED_HANDLE_MIN_SHARE + ((SLOPED_HANDLE_MAX_SHARE - SLOPED_HANDLE_MIN_SHARE) * k) / steps) * idealLength);
+  for (const c of latticeAlongRay(point, want, lengths, grid, snap)) {
+    const lengthCost = Math.abs(c.length - idealLength) / Math.max(idealLength, grid);
+    const score = c.sine <= COLLINEAR_SINE ? lengthCost : 1 + c.sine * 1e3 + lengthCost;
+    if (score < bestScore) {
+      bestScore = score;
+      best = c.handle;
     }
   }
   return { handle: best, score: bestScore };
