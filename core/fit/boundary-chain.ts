@@ -136,17 +136,6 @@ export function indexAtArc(chain: BoundaryChain, position: number): number {
   return lap * chain.count + lo;
 }
 
-/** Sum of a prefix-summed quantity over the unwrapped index range [first, last] (inclusive). */
-function rangeSum(chain: BoundaryChain, prefix: Float64Array, first: number, last: number): number {
-  return prefixUpTo(chain.count, prefix, last + 1) - prefixUpTo(chain.count, prefix, first);
-}
-
-/** Sum of a prefix-summed quantity over unwrapped indices below k (laps counted whole). */
-function prefixUpTo(n: number, prefix: Float64Array, k: number): number {
-  const lap = Math.floor(k / n);
-  return lap * prefix[n]! + prefix[k - lap * n]!;
-}
-
 /**
  * Second moments of the points in the unwrapped range [first, last]: count, mean and
  * the covariance entries, in chain-relative coordinates.
@@ -163,14 +152,22 @@ export interface RangeMoments {
 /** Fills `out` with the moments of [first, last] (inclusive, unwrapped, last ≥ first). O(1). */
 export function rangeMoments(chain: BoundaryChain, first: number, last: number, out: RangeMoments): RangeMoments {
   const m = last - first + 1;
-  const mx = rangeSum(chain, chain.sumX, first, last) / m;
-  const my = rangeSum(chain, chain.sumY, first, last) / m;
+  // Each sum is the prefix below last + 1 less the prefix below first, whole laps
+  // counted by the perimeter totals; the laps of both ends are found once for all five.
+  const n = chain.count;
+  const lapHigh = Math.floor((last + 1) / n);
+  const high = last + 1 - lapHigh * n;
+  const lapLow = Math.floor(first / n);
+  const low = first - lapLow * n;
+  const { sumX, sumY, sumXX, sumYY, sumXY } = chain;
+  const mx = (lapHigh * sumX[n]! + sumX[high]! - (lapLow * sumX[n]! + sumX[low]!)) / m;
+  const my = (lapHigh * sumY[n]! + sumY[high]! - (lapLow * sumY[n]! + sumY[low]!)) / m;
   out.count = m;
   out.meanX = mx;
   out.meanY = my;
-  out.cxx = Math.max(0, rangeSum(chain, chain.sumXX, first, last) / m - mx * mx);
-  out.cyy = Math.max(0, rangeSum(chain, chain.sumYY, first, last) / m - my * my);
-  out.cxy = rangeSum(chain, chain.sumXY, first, last) / m - mx * my;
+  out.cxx = Math.max(0, (lapHigh * sumXX[n]! + sumXX[high]! - (lapLow * sumXX[n]! + sumXX[low]!)) / m - mx * mx);
+  out.cyy = Math.max(0, (lapHigh * sumYY[n]! + sumYY[high]! - (lapLow * sumYY[n]! + sumYY[low]!)) / m - my * my);
+  out.cxy = (lapHigh * sumXY[n]! + sumXY[high]! - (lapLow * sumXY[n]! + sumXY[low]!)) / m - mx * my;
   return out;
 }
 

@@ -350,7 +350,7 @@ function turnNodeToAxis(chain: BoundaryChain, nodes: FitNode[], spans: FitSpan[]
     if (span.segment.kind !== 'cubic') return false;
     const start = trial[s]!;
     const end = trial[(s + 1) % n]!;
-    const fit = fitCubic({ chain, first: span.first, last: span.last, start: start.point, end: end.point, startTangent: start.tangentOut, endTangent: end.tangentIn }, tolerance);
+    const fit = fitCubic({ chain, first: span.first, last: span.last, start: start.point, end: end.point, startTangent: start.tangentOut, endTangent: end.tangentIn }, tolerance, false, true);
     const candidate: FitSpan = { ...span, segment: fit.segment, maxError: fit.maxError };
     if (fit.maxError > tolerance || protrudingExtremum(candidate)) return false;
     replacements.push(candidate);

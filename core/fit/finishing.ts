@@ -46,7 +46,7 @@ export function mergeSegments(chain: BoundaryChain, contour: FittedContour, tole
       const first = before.first;
       let last = after.last;
       if (last < first) last += chain.count;
-      const fit = fitCubic({ chain, first, last, start: start.point, end: end.point, startTangent: start.tangentOut, endTangent: end.tangentIn }, tolerance);
+      const fit = fitCubic({ chain, first, last, start: start.point, end: end.point, startTangent: start.tangentOut, endTangent: end.tangentIn }, tolerance, false, true);
       if (fit.maxError > tolerance) continue;
       if (segmentExtrema(fit.segment).some((e) => e.protrusion > EXTREMUM_PROTRUSION_LIMIT)) continue;
       const span: FitSpan = { segment: fit.segment, first, last, maxError: fit.maxError, carrier: null };
@@ -171,7 +171,7 @@ export function smoothShallowCorners(chain: BoundaryChain, contour: FittedContou
     const next = nodes[(i + 1) % n]!;
     const refit = (span: FitSpan, start: typeof node, end: typeof node): FitSpan | undefined => {
       if (span.segment.kind === 'line') return span;
-      const fit = fitCubic({ chain, first: span.first, last: span.last, start: start.point, end: end.point, startTangent: start.tangentOut, endTangent: end.tangentIn }, tolerance);
+      const fit = fitCubic({ chain, first: span.first, last: span.last, start: start.point, end: end.point, startTangent: start.tangentOut, endTangent: end.tangentIn }, tolerance, false, true);
       return fit.maxError <= tolerance ? { ...span, segment: fit.segment, maxError: fit.maxError } : undefined;
     };
     const newBefore = refit(before, previous, smooth);

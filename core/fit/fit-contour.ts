@@ -37,7 +37,7 @@ import type { FitNode, FitSpan, FittedContour } from './fitted-contour.ts';
 import { detectLines, projectOntoLine, runsBetweenCorners, type ChainRun, type DetectedLine } from './lines.ts';
 import { fitCubic } from './least-squares.ts';
 import { estimateNoise, rangeByArc } from './local-line.ts';
-import { fitStretch } from './minimum-segments.ts';
+import { fitStretchWithin, type CurveEnd, type StretchFit, type StretchSettings } from './minimum-segments.ts';
 import { sharpenCorners } from './corner-sharpening.ts';
 import { fixCrossingHandles, mergeSegments, smoothShallowCorners } from './finishing.ts';
 import { roundToGrid } from './grid-rounding.ts';
@@ -118,10 +118,44 @@ export function fitContour(points: readonly Point[], options: FitOptions = {}): 
 }
 
 /**
+ * The curved stretches already fitted while one contour is fitted, by their exact
+ * inputs. The same stretch between the same two on-curve points is asked for again and
+ * again: once per line-end retreat tried, again when the contour is assembled, and a
+ * second time over when the contour is assembled again with fewer lines. The breakpoint
+ * search is a pure function of its inputs, so a stored fit is the fit.
+ */
+type StretchMemo = Map<string, StretchFit>;
+
+/** The stage settings of economy mode, with the contour's stretch memo. */
+interface EconomySettings extends StageSettings {
+  readonly stretches: StretchMemo;
+}
+
+/** A curve end's inputs in a memo key (numbers print exactly: the shortest decimal that reads back as the same double). */
+function endKey(end: CurveEnd): string {
+  return end.tangent ? `${end.index} ${end.point.x} ${end.point.y} ${end.tangent.x} ${end.tangent.y}` : `${end.index} ${end.point.x} ${end.point.y} free`;
+}
+
+/**
+ * The fewest cubics for a curved stretch (minimum-segments.ts), taken from the memo when
+ * this exact stretch was fitted before; undefined when they number more than `maxSegments`.
+ */
+function curveStretch(chain: BoundaryChain, start: CurveEnd, end: CurveEnd, first: number, last: number, settings: EconomySettings, maxSegments = Infinity): StretchFit | undefined {
+  const stretch: StretchSettings = { tolerance: settings.fitTolerance, pixel: settings.pixel };
+  const key = `${endKey(start)}|${endKey(end)}|${first} ${last} ${stretch.tolerance} ${stretch.pixel}`;
+  const known = settings.stretches.get(key);
+  if (known) return known.segments.length <= maxSegments ? known : undefined;
+  const fit = fitStretchWithin(chain, start, end, first, last, stretch, maxSegments);
+  if (fit) settings.stretches.set(key, fit);
+  return fit;
+}
+
+/**
  * Stages 2–6 of the header for the default 'economy' mode: the fewest on-curve points.
  * (Smooth mode fits C² splines between the corners instead, smooth-fit.ts.)
  */
-function economyFit(chain: BoundaryChain, corners: readonly DetectedCorner[], runs: readonly ChainRun[], settings: StageSettings): FittedContour {
+function economyFit(chain: BoundaryChain, corners: readonly DetectedCorner[], runs: readonly ChainRun[], stageSettings: StageSettings): FittedContour {
+  const settings: EconomySettings = { ...stageSettings, stretches: new Map() };
   const { options, pixel, fitTolerance } = settings;
   const lines = withoutLinesInSingleCurves(chain, runs, corners, detectLines(chain, runs, { tolerance: fitTolerance, pixel, axisSnap: (options.axisSnapDegrees * Math.PI) / 180 }), settings);
   let fitted = assemble(chain, corners, lines, settings);
@@ -158,7 +192,7 @@ function withoutLinesInSingleCurves(chain: BoundaryChain, runs: readonly ChainRu
     const start = corners[k]!;
     const end = corners[(k + 1) % corners.length]!;
     if (inside.every((l) => dropped.has(l))) return;
-    const fit = fitCubic({ chain, first: run.first, last: run.last, start: start.estimate, end: end.estimate, startTangent: null, endTangent: null }, settings.fitTolerance);
+    const fit = fitCubic({ chain, first: run.first, last: run.last, start: start.estimate, end: end.estimate, startTangent: null, endTangent: null }, settings.fitTolerance, false, true);
     if (fit.maxError > settings.fitTolerance) return;
     for (const l of inside) dropped.add(l);
   });
@@ -197,7 +231,7 @@ const CURVES_ERROR_SHARE = 0.6;
  * tolerance; the one with fewer points wins, lines on a tie. A stem or a bar (see
  * STEM_PROTECTION_PX) is never traded for curves, so straight stems stay straight.
  */
-function economicalLines(chain: BoundaryChain, runs: readonly ChainRun[], corners: readonly DetectedCorner[], lines: readonly DetectedLine[], assembled: FittedContour, settings: StageSettings): DetectedLine[] | undefined {
+function economicalLines(chain: BoundaryChain, runs: readonly ChainRun[], corners: readonly DetectedCorner[], lines: readonly DetectedLine[], assembled: FittedContour, settings: EconomySettings): DetectedLine[] | undefined {
   if (corners.length === 0 || lines.length === 0) return undefined;
   const protectedLength = STEM_PROTECTION_PX * settings.pixel;
   const cornerAngle = (settings.options.cornerAngleDegrees * Math.PI) / 180;
@@ -237,7 +271,7 @@ function economicalLines(chain: BoundaryChain, runs: readonly ChainRun[], corner
  * between them), or undefined when that is not within the tolerance or would need
  * at least `bound` points.
  */
-function curveOnlyCost(chain: BoundaryChain, start: DetectedCorner, end: DetectedCorner, settings: StageSettings, bound: number): number | undefined {
+function curveOnlyCost(chain: BoundaryChain, start: DetectedCorner, end: DetectedCorner, settings: EconomySettings, bound: number): number | undefined {
   const { pixel, fitTolerance, noise } = settings;
   const endIndex = end.index <= start.index ? end.index + chain.count : end.index;
   const from = arcAt(chain, start.index) + start.roundingZone;
@@ -260,7 +294,7 @@ function curveOnlyCost(chain: BoundaryChain, start: DetectedCorner, end: Detecte
     const first = i === 0 ? dataFirst : Math.max(dataFirst, a.index);
     const last = i + 2 === ends.length ? dataLast : Math.min(dataLast, b.index);
     if (last <= first) return undefined;
-    const fit = fitStretch(chain, a, b, first, last, { tolerance: fitTolerance, pixel });
+    const fit = curveStretch(chain, a, b, first, last, settings)!;
     if (fit.errors.some((e) => e > fitTolerance)) return undefined;
     cost += fit.segments.length - 1;
   }
@@ -345,7 +379,7 @@ function arcForward(chain: BoundaryChain, a: number, b: number): number {
 }
 
 /** Stages 1–4: knots from corners, lines and extrema, then the curves between them. */
-function assemble(chain: BoundaryChain, corners: readonly DetectedCorner[], lines: readonly DetectedLine[], settings: StageSettings): FittedContour {
+function assemble(chain: BoundaryChain, corners: readonly DetectedCorner[], lines: readonly DetectedLine[], settings: EconomySettings): FittedContour {
   const { pixel, fitTolerance } = settings;
   const knots: Knot[] = corners.map((corner) => ({
     index: corner.index,
@@ -450,7 +484,7 @@ function assemble(chain: BoundaryChain, corners: readonly DetectedCorner[], line
       return;
     }
     const [first, last] = dataRange(chain, k, next);
-    const fit = fitStretch(chain, { index: k.index, point: k.point, tangent: k.tangentOut }, { index: next.index, point: next.point, tangent: next.tangentIn }, first, last, { tolerance: fitTolerance, pixel });
+    const fit = curveStretch(chain, { index: k.index, point: k.point, tangent: k.tangentOut }, { index: next.index, point: next.point, tangent: next.tangentIn }, first, last, settings)!;
     fit.segments.forEach((segment, s) => {
       if (s > 0) {
         const b = fit.breakpoints[s - 1]!;
@@ -478,8 +512,8 @@ const MAX_RETREAT_SHARE = 0.25;
  * Moves each smooth line end (a line joined tangentially by a curve) back along the
  * line to where one cubic from it to the next on-curve point fits best.
  */
-function settleLineEnds(chain: BoundaryChain, knots: Knot[], lineIn: Map<Knot, DetectedLine>, settings: StageSettings): void {
-  const { pixel, fitTolerance } = settings;
+function settleLineEnds(chain: BoundaryChain, knots: Knot[], lineIn: Map<Knot, DetectedLine>, settings: EconomySettings): void {
+  const { pixel } = settings;
   const count = knots.length;
   for (let i = 0; i < count; i++) {
     const knot = knots[i]!;
@@ -489,9 +523,9 @@ function settleLineEnds(chain: BoundaryChain, knots: Knot[], lineIn: Map<Knot, D
     if (incoming && !outgoing) {
       // Line arrives, curve leaves: retreat backwards along the incoming line.
       const next = nextKnot(knots, i, chain.count);
-      const best = bestRetreat(chain, knot, incoming, -1, (trial) => {
+      const best = bestRetreat(chain, knot, incoming, -1, (trial, maxSegments) => {
         const [first, last] = dataRange(chain, trial, next);
-        return fitStretch(chain, { index: trial.index, point: trial.point, tangent: trial.tangentOut }, { index: next.index, point: next.point, tangent: next.tangentIn }, first, last, { tolerance: fitTolerance, pixel });
+        return curveStretch(chain, { index: trial.index, point: trial.point, tangent: trial.tangentOut }, { index: next.index, point: next.point, tangent: next.tangentIn }, first, last, settings, maxSegments);
       }, arcForward(chain, incoming.first, knot.index), pixel);
       if (best) {
         knot.index = best.index;
@@ -500,9 +534,9 @@ function settleLineEnds(chain: BoundaryChain, knots: Knot[], lineIn: Map<Knot, D
     } else if (outgoing && !incoming) {
       const previous = knots[(i - 1 + count) % count]!;
       const before: Knot = i === 0 ? { ...previous, index: previous.index - chain.count } : previous;
-      const best = bestRetreat(chain, knot, outgoing, 1, (trial) => {
+      const best = bestRetreat(chain, knot, outgoing, 1, (trial, maxSegments) => {
         const [first, last] = dataRange(chain, before, trial);
-        return fitStretch(chain, { index: before.index, point: before.point, tangent: before.tangentOut }, { index: trial.index, point: trial.point, tangent: trial.tangentIn }, first, last, { tolerance: fitTolerance, pixel });
+        return curveStretch(chain, { index: before.index, point: before.point, tangent: before.tangentOut }, { index: trial.index, point: trial.point, tangent: trial.tangentIn }, first, last, settings, maxSegments);
       }, arcForward(chain, knot.index, outgoing.last), pixel);
       if (best) {
         knot.index = best.index;
@@ -514,14 +548,16 @@ function settleLineEnds(chain: BoundaryChain, knots: Knot[], lineIn: Map<Knot, D
 
 /**
  * The retreat (direction −1: backwards from a line's end; +1: forwards from its
- * start) whose curve fit has the fewest segments, then the smallest error.
+ * start) whose curve fit has the fewest segments, then the smallest error. `fitCurve`
+ * may give up (undefined) on a trial needing more segments than the limit it is given,
+ * since such a trial cannot win.
  */
 function bestRetreat(
   chain: BoundaryChain,
   knot: Knot,
   l: DetectedLine,
   direction: number,
-  fitCurve: (trial: Knot) => { segments: readonly unknown[]; errors: readonly number[] },
+  fitCurve: (trial: Knot, maxSegments: number) => { segments: readonly unknown[]; errors: readonly number[] } | undefined,
   lineLength: number,
   pixel: number,
 ): { index: number; point: Point } | undefined {
@@ -533,7 +569,8 @@ function bestRetreat(
     const [index] = direction < 0 ? rangeByArc(chain, s0 - distance, s0 - distance) : rangeByArc(chain, s0 + distance, s0 + distance);
     const trialIndex = retreat === 0 ? knot.index : Math.max(Math.min(index, Math.max(knot.index, index)), Math.min(knot.index, index));
     const trial: Knot = { ...knot, index: trialIndex, point: projectOntoLine(chain, l, trialIndex) };
-    const fit = fitCurve(trial);
+    const fit = fitCurve(trial, best ? best.segments : Infinity);
+    if (!fit) continue;
     const error = Math.max(...fit.errors);
     if (!best || fit.segments.length < best.segments || (fit.segments.length === best.segments && error < best.error - 1e-9)) {
       best = { index: trial.index, point: trial.point, segments: fit.segments.length, error };

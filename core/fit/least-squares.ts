@@ -83,8 +83,15 @@ function parameters(size: number): Float64Array {
  * handle lengths are positive. `maxError` ≤ tolerance implies every fitted point is
  * within tolerance of the cubic. Limit: the least-squares optimum is over handle
  * lengths and parameters jointly but found by alternation, so it is a local optimum.
+ *
+ * `quick`: the few reparameterisation rounds of a trial fit (QUICK_REPARAMETERIZATIONS),
+ * with hopeless fits given up early. `verdictOnly`: the caller only asks whether the
+ * fit is within the tolerance, so measuring stops at the first point found beyond it;
+ * a failing fit's maxError is then that point's distance (still above the tolerance,
+ * but not necessarily the largest), while a passing fit's is unaffected. Quick fits
+ * are always measured this way.
  */
-export function fitCubic(request: CubicFitRequest, tolerance: number, quick = false): CubicFit {
+export function fitCubic(request: CubicFitRequest, tolerance: number, quick = false, verdictOnly = false): CubicFit {
   const { chain, first, last, start, end } = request;
   const m = last - first + 1;
   const chord = Math.hypot(end.x - start.x, end.y - start.y);
@@ -112,7 +119,7 @@ export function fitCubic(request: CubicFitRequest, tolerance: number, quick = fa
     previousError = error;
     segment = solveHandles(request, u, m, chord);
   }
-  const measured = measureErrors(segment, chain, first, last, u, tolerance, quick);
+  const measured = measureErrors(segment, chain, first, last, u, tolerance, quick || verdictOnly);
   return { segment, maxError: measured.maxError, worstIndex: measured.worstIndex };
 }
 
@@ -151,62 +158,161 @@ function fallbackCubic(request: CubicFitRequest, chord: number): CubicSegment {
 }
 
 /**
+ * Scratch space of the handle solve (one fit runs at a time: the fitter is
+ * single-threaded and each worker has its own module): the normal matrix (row-major
+ * 4 × 4, n × n block used), its right-hand side and the solution.
+ */
+const normalMatrix = new Float64Array(16);
+const normalRhs = new Float64Array(4);
+const handleSolution = new Float64Array(4);
+
+/**
  * Solves the linear least-squares problem for the handles at fixed parameters.
- * Unknowns: α₁ (fixed start tangent) or P₁ (free), α₂ or P₂.
+ * Unknowns: α₁ (fixed start tangent) or P₁ (free), α₂ or P₂. The normal equations are
+ * summed in scalars, one loop per combination of fixed and free ends: this is the
+ * fitter's innermost loop (it runs once per point and reparameterisation round of
+ * every trial fit), and the columns of a free handle are (b, 0) and (0, b), whose zero
+ * products need not be summed.
  */
 function solveHandles(request: CubicFitRequest, u: Float64Array, m: number, chord: number): CubicSegment {
   const { chain, first, start, end, startTangent, endTangent } = request;
   const ox = chain.origin.x;
   const oy = chain.origin.y;
+  const xs = chain.xs;
+  const ys = chain.ys;
+  const sx = start.x;
+  const sy = start.y;
+  const ex = end.x;
+  const ey = end.y;
   const n1 = startTangent ? 1 : 2;
   const n = n1 + (endTangent ? 1 : 2);
-  // Normal matrix (symmetric, n ≤ 4) and right-hand side.
-  const a = [0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0];
-  const r = [0, 0, 0, 0];
-  const colX = [0, 0, 0, 0];
-  const colY = [0, 0, 0, 0];
+  // Upper triangle of the normal matrix and the right-hand side.
+  let a00 = 0, a01 = 0, a02 = 0, a03 = 0, a11 = 0, a12 = 0, a13 = 0, a22 = 0, a23 = 0, a33 = 0;
+  let r0 = 0, r1 = 0, r2 = 0, r3 = 0;
   const count = chain.count;
   let i = wrapIndex(chain, first) - 1;
-  for (let k = 0; k < m; k++) {
-    const t = u[k]!;
-    const s = 1 - t;
-    const b0 = s * s * s;
-    const b1 = 3 * s * s * t;
-    const b2 = 3 * s * t * t;
-    const b3 = t * t * t;
-    i++;
-    if (i === count) i = 0;
-    let rx = chain.xs[i]! + ox - b0 * start.x - b3 * end.x;
-    let ry = chain.ys[i]! + oy - b0 * start.y - b3 * end.y;
-    let c = 0;
-    if (startTangent) {
-      rx -= b1 * start.x;
-      ry -= b1 * start.y;
-      colX[c] = b1 * startTangent.x;
-      colY[c] = b1 * startTangent.y;
-      c++;
-    } else {
-      colX[c] = b1; colY[c] = 0; c++;
-      colX[c] = 0; colY[c] = b1; c++;
+  if (startTangent && endTangent) {
+    const t0x = startTangent.x;
+    const t0y = startTangent.y;
+    const t1x = endTangent.x;
+    const t1y = endTangent.y;
+    for (let k = 0; k < m; k++) {
+      const t = u[k]!;
+      const s = 1 - t;
+      const b0 = s * s * s;
+      const b1 = 3 * s * s * t;
+      const b2 = 3 * s * t * t;
+      const b3 = t * t * t;
+      i++;
+      if (i === count) i = 0;
+      let rx = xs[i]! + ox - b0 * sx - b3 * ex;
+      let ry = ys[i]! + oy - b0 * sy - b3 * ey;
+      rx -= b1 * sx;
+      ry -= b1 * sy;
+      rx -= b2 * ex;
+      ry -= b2 * ey;
+      const c0x = b1 * t0x;
+      const c0y = b1 * t0y;
+      const c1x = -b2 * t1x;
+      const c1y = -b2 * t1y;
+      r0 += c0x * rx + c0y * ry;
+      a00 += c0x * c0x + c0y * c0y;
+      a01 += c0x * c1x + c0y * c1y;
+      r1 += c1x * rx + c1y * ry;
+      a11 += c1x * c1x + c1y * c1y;
     }
-    if (endTangent) {
-      rx -= b2 * end.x;
-      ry -= b2 * end.y;
-      colX[c] = -b2 * endTangent.x;
-      colY[c] = -b2 * endTangent.y;
-      c++;
-    } else {
-      colX[c] = b2; colY[c] = 0; c++;
-      colX[c] = 0; colY[c] = b2; c++;
+  } else if (endTangent) {
+    const t1x = endTangent.x;
+    const t1y = endTangent.y;
+    for (let k = 0; k < m; k++) {
+      const t = u[k]!;
+      const s = 1 - t;
+      const b0 = s * s * s;
+      const b1 = 3 * s * s * t;
+      const b2 = 3 * s * t * t;
+      const b3 = t * t * t;
+      i++;
+      if (i === count) i = 0;
+      let rx = xs[i]! + ox - b0 * sx - b3 * ex;
+      let ry = ys[i]! + oy - b0 * sy - b3 * ey;
+      rx -= b2 * ex;
+      ry -= b2 * ey;
+      const c2x = -b2 * t1x;
+      const c2y = -b2 * t1y;
+      const b11 = b1 * b1;
+      r0 += b1 * rx;
+      a00 += b11;
+      a02 += b1 * c2x;
+      r1 += b1 * ry;
+      a11 += b11;
+      a12 += b1 * c2y;
+      r2 += c2x * rx + c2y * ry;
+      a22 += c2x * c2x + c2y * c2y;
     }
-    for (let p = 0; p < n; p++) {
-      r[p]! += colX[p]! * rx + colY[p]! * ry;
-      for (let q = p; q < n; q++) a[p * 4 + q]! += colX[p]! * colX[q]! + colY[p]! * colY[q]!;
+  } else if (startTangent) {
+    const t0x = startTangent.x;
+    const t0y = startTangent.y;
+    for (let k = 0; k < m; k++) {
+      const t = u[k]!;
+      const s = 1 - t;
+      const b0 = s * s * s;
+      const b1 = 3 * s * s * t;
+      const b2 = 3 * s * t * t;
+      const b3 = t * t * t;
+      i++;
+      if (i === count) i = 0;
+      let rx = xs[i]! + ox - b0 * sx - b3 * ex;
+      let ry = ys[i]! + oy - b0 * sy - b3 * ey;
+      rx -= b1 * sx;
+      ry -= b1 * sy;
+      const c0x = b1 * t0x;
+      const c0y = b1 * t0y;
+      const b22 = b2 * b2;
+      r0 += c0x * rx + c0y * ry;
+      a00 += c0x * c0x + c0y * c0y;
+      a01 += c0x * b2;
+      a02 += c0y * b2;
+      r1 += b2 * rx;
+      a11 += b22;
+      r2 += b2 * ry;
+      a22 += b22;
+    }
+  } else {
+    for (let k = 0; k < m; k++) {
+      const t = u[k]!;
+      const s = 1 - t;
+      const b0 = s * s * s;
+      const b1 = 3 * s * s * t;
+      const b2 = 3 * s * t * t;
+      const b3 = t * t * t;
+      i++;
+      if (i === count) i = 0;
+      const rx = xs[i]! + ox - b0 * sx - b3 * ex;
+      const ry = ys[i]! + oy - b0 * sy - b3 * ey;
+      const b11 = b1 * b1;
+      const b12 = b1 * b2;
+      const b22 = b2 * b2;
+      r0 += b1 * rx;
+      r1 += b1 * ry;
+      r2 += b2 * rx;
+      r3 += b2 * ry;
+      a00 += b11;
+      a11 += b11;
+      a02 += b12;
+      a13 += b12;
+      a22 += b22;
+      a33 += b22;
     }
   }
+  const a = normalMatrix;
+  a[0] = a00; a[1] = a01; a[2] = a02; a[3] = a03;
+  a[5] = a11; a[6] = a12; a[7] = a13;
+  a[10] = a22; a[11] = a23;
+  a[15] = a33;
   for (let p = 0; p < n; p++) for (let q = 0; q < p; q++) a[p * 4 + q] = a[q * 4 + p]!;
-  const z = solveSymmetric(a, r, n);
-  if (!z) return fallbackCubic(request, chord);
+  normalRhs[0] = r0; normalRhs[1] = r1; normalRhs[2] = r2; normalRhs[3] = r3;
+  const z = handleSolution;
+  if (!solveSymmetric(a, normalRhs, n, z)) return fallbackCubic(request, chord);
   let p1: Point;
   let p2: Point;
   if (startTangent) {
@@ -226,17 +332,19 @@ function solveHandles(request: CubicFitRequest, u: Float64Array, m: number, chor
   return cubic(start, p1, p2, end);
 }
 
-/** Gaussian elimination with partial pivoting on the n × n block of a 4 × 4 row-major matrix. */
-function solveSymmetric(matrix: number[], rhs: number[], n: number): number[] | undefined {
-  const a = matrix.slice();
-  const b = rhs.slice(0, n);
+/**
+ * Gaussian elimination with partial pivoting on the n × n block of a 4 × 4 row-major
+ * matrix, in place (matrix and rhs are overwritten); the solution goes into x. False
+ * when the matrix is singular to working precision.
+ */
+function solveSymmetric(a: Float64Array, b: Float64Array, n: number, x: Float64Array): boolean {
   let scale = 0;
   for (let i = 0; i < n; i++) scale = Math.max(scale, Math.abs(a[i * 4 + i]!));
-  if (scale === 0) return undefined;
+  if (scale === 0) return false;
   for (let col = 0; col < n; col++) {
     let pivot = col;
     for (let row = col + 1; row < n; row++) if (Math.abs(a[row * 4 + col]!) > Math.abs(a[pivot * 4 + col]!)) pivot = row;
-    if (Math.abs(a[pivot * 4 + col]!) < 1e-12 * scale) return undefined;
+    if (Math.abs(a[pivot * 4 + col]!) < 1e-12 * scale) return false;
     if (pivot !== col) {
       for (let k = 0; k < n; k++) {
         const tmp = a[col * 4 + k]!;
@@ -253,13 +361,12 @@ function solveSymmetric(matrix: number[], rhs: number[], n: number): number[] | 
       b[row]! -= f * b[col]!;
     }
   }
-  const x = [0, 0, 0, 0];
   for (let row = n - 1; row >= 0; row--) {
     let sum = b[row]!;
     for (let k = row + 1; k < n; k++) sum -= a[row * 4 + k]! * x[k]!;
     x[row] = sum / a[row * 4 + row]!;
   }
-  return x;
+  return true;
 }
 
 /**

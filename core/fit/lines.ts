@@ -94,7 +94,7 @@ const scratch: StretchLine = emptyStretchLine();
 export function testLine(chain: BoundaryChain, first: number, last: number, settings: LineSettings): LineTest {
   // Straightness is judged on the regression line; snapping is then allowed when the
   // snapped line still holds every point within the tolerance.
-  const test = testLineOnce(chain, first, last, { ...settings, axisSnap: -1 });
+  const test = testLineOnce(chain, first, last, settings, -1);
   if (!test.ok || !test.line) return test;
   const { direction } = test.line;
   const offAxis = Math.abs(Math.atan(direction.y / direction.x));
@@ -104,15 +104,19 @@ export function testLine(chain: BoundaryChain, first: number, last: number, sett
   const cx = test.line.through.x - chain.origin.x;
   const cy = test.line.through.y - chain.origin.y;
   let worst = 0;
+  const xs = chain.xs;
+  const ys = chain.ys;
+  let i = wrapIndex(chain, first);
   for (let k = first; k <= last; k++) {
-    const i = wrapIndex(chain, k);
-    worst = Math.max(worst, Math.abs(-(chain.xs[i]! - cx) * snappedDirection.y + (chain.ys[i]! - cy) * snappedDirection.x));
+    worst = Math.max(worst, Math.abs(-(xs[i]! - cx) * snappedDirection.y + (ys[i]! - cy) * snappedDirection.x));
+    if (++i === chain.count) i = 0;
   }
   if (worst > settings.tolerance) return test;
   return { ok: true, line: { ...test.line, direction: snappedDirection, axis, maxResidual: worst } };
 }
 
-function testLineOnce(chain: BoundaryChain, first: number, last: number, settings: LineSettings): LineTest {
+/** The line test with the given axis snap (radians; negative: none) in place of the settings' own. */
+function testLineOnce(chain: BoundaryChain, first: number, last: number, settings: LineSettings, axisSnap: number): LineTest {
   const m = last - first + 1;
   if (m < 3) return { ok: false };
   const fit = fitStretchLine(chain, first, last, scratch);
@@ -122,11 +126,11 @@ function testLineOnce(chain: BoundaryChain, first: number, last: number, setting
   const cy = fit.centreY;
   let axis: 'horizontal' | 'vertical' | null = null;
   const angleToHorizontal = Math.abs(Math.atan(dy / dx));
-  if (angleToHorizontal <= settings.axisSnap) {
+  if (angleToHorizontal <= axisSnap) {
     axis = 'horizontal';
     dx = Math.sign(dx);
     dy = 0;
-  } else if (Math.PI / 2 - angleToHorizontal <= settings.axisSnap) {
+  } else if (Math.PI / 2 - angleToHorizontal <= axisSnap) {
     axis = 'vertical';
     dx = 0;
     dy = Math.sign(dy);
@@ -136,23 +140,33 @@ function testLineOnce(chain: BoundaryChain, first: number, last: number, setting
   const arcFirst = arcAt(chain, first);
   const arcLast = arcAt(chain, last);
   // Residuals v along u; power sums for the parabola v ≈ c0 + c1·w + c2·w², w = u scaled to [−1, 1].
+  // The points are visited by a running index and lap, which give the same index and
+  // arc length as wrapIndex and arcAt without a division per point.
+  const xs = chain.xs;
+  const ys = chain.ys;
+  const n = chain.count;
+  const firstLap = Math.floor(first / n);
+  const firstIndex = first - firstLap * n;
   let uMin = Infinity;
   let uMax = -Infinity;
-  for (let k = first; k <= last; k++) {
-    const i = wrapIndex(chain, k);
-    const u = (chain.xs[i]! - cx) * dx + (chain.ys[i]! - cy) * dy;
+  for (let k = first, i = firstIndex; k <= last; k++) {
+    const u = (xs[i]! - cx) * dx + (ys[i]! - cy) * dy;
     if (u < uMin) uMin = u;
     if (u > uMax) uMax = u;
+    if (++i === n) i = 0;
   }
   const uMid = (uMin + uMax) / 2;
   const uHalf = Math.max((uMax - uMin) / 2, 1e-9);
   let maxResidual = 0;
   let s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, s5 = 0, s6 = 0, t0 = 0, t1 = 0, t2 = 0, t3 = 0, vv = 0;
   let headSum = 0, headCount = 0, tailSum = 0, tailCount = 0;
+  const arc = chain.arc;
+  const perimeter = chain.perimeter;
+  let lap = firstLap;
+  let i = firstIndex;
   for (let k = first; k <= last; k++) {
-    const i = wrapIndex(chain, k);
-    const px = chain.xs[i]! - cx;
-    const py = chain.ys[i]! - cy;
+    const px = xs[i]! - cx;
+    const py = ys[i]! - cy;
     const w = (px * dx + py * dy - uMid) / uHalf;
     const v = -px * dy + py * dx;
     const av = Math.abs(v);
@@ -160,9 +174,13 @@ function testLineOnce(chain: BoundaryChain, first: number, last: number, setting
     const w2 = w * w;
     s0 += 1; s1 += w; s2 += w2; s3 += w2 * w; s4 += w2 * w2; s5 += w2 * w2 * w; s6 += w2 * w2 * w2;
     t0 += v; t1 += w * v; t2 += w2 * v; t3 += w2 * w * v; vv += v * v;
-    const s = arcAt(chain, k);
+    const s = lap * perimeter + arc[i]!;
     if (s - arcFirst <= endLength) { headSum += v; headCount++; }
     if (arcLast - s <= endLength) { tailSum += v; tailCount++; }
+    if (++i === n) {
+      i = 0;
+      lap++;
+    }
   }
   if (maxResidual > settings.tolerance) return { ok: false };
   // Least-squares parabola by Cramer's rule, and the standard error of c2.
@@ -182,7 +200,7 @@ function testLineOnce(chain: BoundaryChain, first: number, last: number, setting
     }
   }
   // S-shaped residuals (a stretch through an inflection): the cubic term of the residual.
-  const sBend = cubicTerm([s0, s1, s2, s3, s1, s2, s3, s4, s2, s3, s4, s5, s3, s4, s5, s6], [t0, t1, t2, t3]);
+  const sBend = cubicTerm(s0, s1, s2, s3, s4, s5, s6, t0, t1, t2, t3);
   if (sBend !== undefined && S_BEND_PEAK * Math.abs(sBend) > BOW_SHARE_OF_TOLERANCE * settings.tolerance) return { ok: false };
   const driftLimit = DRIFT_SHARE_OF_TOLERANCE * settings.tolerance;
   if (headCount > 0 && Math.abs(headSum / headCount) > driftLimit) return { ok: false };
@@ -198,16 +216,34 @@ function testLineOnce(chain: BoundaryChain, first: number, last: number, setting
  */
 const S_BEND_PEAK = 0.4;
 
-/** The w³ coefficient of the least-squares cubic in w (4 × 4 normal equations), or undefined if singular. */
-function cubicTerm(matrix: number[], rhs: number[]): number | undefined {
-  const a = matrix.slice();
-  const b = rhs.slice();
+/** Scratch space of cubicTerm: the 4 × 4 normal matrix (row-major) and its right-hand side. */
+const cubicMatrix = new Float64Array(16);
+const cubicRhs = new Float64Array(4);
+
+/**
+ * The w³ coefficient of the least-squares cubic in w (4 × 4 normal equations of the
+ * power sums s₀…s₆ of w and t₀…t₃ of wᵏ·v), or undefined if singular.
+ */
+function cubicTerm(s0: number, s1: number, s2: number, s3: number, s4: number, s5: number, s6: number, t0: number, t1: number, t2: number, t3: number): number | undefined {
+  const a = cubicMatrix;
+  const b = cubicRhs;
+  a[0] = s0; a[1] = s1; a[2] = s2; a[3] = s3;
+  a[4] = s1; a[5] = s2; a[6] = s3; a[7] = s4;
+  a[8] = s2; a[9] = s3; a[10] = s4; a[11] = s5;
+  a[12] = s3; a[13] = s4; a[14] = s5; a[15] = s6;
+  b[0] = t0; b[1] = t1; b[2] = t2; b[3] = t3;
   for (let col = 0; col < 4; col++) {
     let pivot = col;
     for (let row = col + 1; row < 4; row++) if (Math.abs(a[row * 4 + col]!) > Math.abs(a[pivot * 4 + col]!)) pivot = row;
     if (Math.abs(a[pivot * 4 + col]!) < 1e-12 * Math.abs(a[0]!)) return undefined;
-    for (let k = 0; k < 4; k++) [a[col * 4 + k], a[pivot * 4 + k]] = [a[pivot * 4 + k]!, a[col * 4 + k]!];
-    [b[col], b[pivot]] = [b[pivot]!, b[col]!];
+    for (let k = 0; k < 4; k++) {
+      const swap = a[col * 4 + k]!;
+      a[col * 4 + k] = a[pivot * 4 + k]!;
+      a[pivot * 4 + k] = swap;
+    }
+    const swap = b[col]!;
+    b[col] = b[pivot]!;
+    b[pivot] = swap;
     for (let row = col + 1; row < 4; row++) {
       const f = a[row * 4 + col]! / a[col * 4 + col]!;
       for (let k = col; k < 4; k++) a[row * 4 + k]! -= f * a[col * 4 + k]!;
@@ -325,9 +361,16 @@ export function detectLines(chain: BoundaryChain, runs: readonly ChainRun[], set
     const taken: [number, number][] = [];
     // Stretches grown from a seed but too short: seeds inside them would grow the same way.
     const tried: [number, number][] = [];
-    const inside = (spans: readonly [number, number][], k: number): boolean => spans.some(([a, b]) => k >= a && k <= b);
+    // The same spans as masks over the run's points, so that each of the thousands of
+    // seeds is checked in O(1); a point outside the run is checked against the lists.
+    const runSize = run.last - run.first + 1;
+    const takenMask = new Uint8Array(runSize);
+    const triedMask = new Uint8Array(runSize);
+    const mark = (mask: Uint8Array, a: number, b: number): void => mask.fill(1, Math.max(0, a - run.first), Math.max(0, Math.min(runSize, b - run.first + 1)));
+    const inside = (spans: readonly [number, number][], mask: Uint8Array, k: number): boolean =>
+      k >= run.first && k <= run.last ? mask[k - run.first] === 1 : spans.some(([a, b]) => k >= a && k <= b);
     for (const seed of seeds) {
-      if (inside(taken, seed.first) || inside(taken, seed.last) || inside(tried, seed.index)) continue;
+      if (inside(taken, takenMask, seed.first) || inside(taken, takenMask, seed.last) || inside(tried, triedMask, seed.index)) continue;
       if (!testLine(chain, seed.first, seed.last, settings).ok) continue;
       // Grow within the run and outside lines already found.
       let limitForward = run.last;
@@ -342,6 +385,7 @@ export function detectLines(chain: BoundaryChain, runs: readonly ChainRun[], set
       const length = arcAt(chain, last) - arcAt(chain, first);
       if (length < minLength) {
         tried.push([first, last]);
+        mark(triedMask, first, last);
         continue;
       }
       const found = testLine(chain, first, last, settings);
@@ -351,9 +395,11 @@ export function detectLines(chain: BoundaryChain, runs: readonly ChainRun[], set
         (arcAt(chain, first) - arcAt(chain, run.first) <= TOUCHES_CORNER_PX * settings.pixel || arcAt(chain, run.last) - arcAt(chain, last) <= TOUCHES_CORNER_PX * settings.pixel);
       if (!touchesCorner && length < MIN_FREE_LINE_PX * settings.pixel) {
         tried.push([first, last]);
+        mark(triedMask, first, last);
         continue;
       }
       taken.push([first, last]);
+      mark(takenMask, first, last);
       lines.push(found.line);
     }
   }

@@ -82,8 +82,20 @@ interface Candidate {
  * (noise spikes above it), that segment exceeds it and its error says so.
  */
 export function fitStretch(chain: BoundaryChain, start: CurveEnd, end: CurveEnd, dataFirst: number, dataLast: number, settings: StretchSettings): StretchFit {
+  return fitStretchWithin(chain, start, end, dataFirst, dataLast, settings, Infinity) as StretchFit;
+}
+
+/**
+ * {@link fitStretch}, or undefined as soon as the search shows that the fewest cubics
+ * number more than `maxSegments`. A caller comparing several ways of fitting one
+ * stretch (fit-contour.ts, where a line end may retreat) skips the rest of the search,
+ * the balancing pass and the final fits for a way that cannot win. With an infinite
+ * limit the result is exactly fitStretch's.
+ */
+export function fitStretchWithin(chain: BoundaryChain, start: CurveEnd, end: CurveEnd, dataFirst: number, dataLast: number, settings: StretchSettings, maxSegments: number): StretchFit | undefined {
   const { tolerance, pixel } = settings;
-  const whole = fitCubic({ chain, first: dataFirst, last: dataLast, start: start.point, end: end.point, startTangent: start.tangent, endTangent: end.tangent }, tolerance);
+  // Only a whole fit within the tolerance is used, so its error is measured for the verdict alone.
+  const whole = fitCubic({ chain, first: dataFirst, last: dataLast, start: start.point, end: end.point, startTangent: start.tangent, endTangent: end.tangent }, tolerance, false, true);
   if (whole.maxError <= tolerance) return { segments: [whole.segment], ranges: [[dataFirst, dataLast]], errors: [whole.maxError], breakpoints: [] };
 
   const spacing = BREAKPOINT_SPACING_PX * pixel;
@@ -112,8 +124,9 @@ export function fitStretch(chain: BoundaryChain, start: CurveEnd, end: CurveEnd,
     memo.set(key, ok);
     return ok;
   };
-  const forward = greedyPath(last, (i, j) => fits(i, j));
-  const backward = greedyPath(last, (i, j) => fits(last - j, last - i)).map((p) => last - p).reverse();
+  const forward = greedyPath(last, (i, j) => fits(i, j), maxSegments);
+  if (!forward) return undefined;
+  const backward = greedyPath(last, (i, j) => fits(last - j, last - i), Infinity)!.map((p) => last - p).reverse();
   let path = forward;
   if (backward.length === forward.length) {
     const balanced = forward.map((f, m) => Math.round((f + backward[m]!) / 2));
@@ -140,12 +153,14 @@ export function fitStretch(chain: BoundaryChain, start: CurveEnd, end: CurveEnd,
 
 /**
  * Node sequence 0 = p₀ < p₁ < … < p_k = last where each step reaches the farthest node
- * that `fits` from the previous one (one node ahead when none does).
+ * that `fits` from the previous one (one node ahead when none does); undefined once k
+ * is certain to exceed `maxSteps`.
  */
-function greedyPath(last: number, fits: (i: number, j: number) => boolean): number[] {
+function greedyPath(last: number, fits: (i: number, j: number) => boolean, maxSteps: number): number[] | undefined {
   const path = [0];
   let at = 0;
   while (at < last) {
+    if (path.length - 1 >= maxSteps) return undefined;
     if (fits(at, last)) {
       path.push(last);
       break;
