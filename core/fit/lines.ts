@@ -366,7 +366,9 @@ export function detectLines(chain: BoundaryChain, runs: readonly ChainRun[], set
     const runSize = run.last - run.first + 1;
     const takenMask = new Uint8Array(runSize);
     const triedMask = new Uint8Array(runSize);
-    const mark = (mask: Uint8Array, a: number, b: number): void => mask.fill(1, Math.max(0, a - run.first), Math.max(0, Math.min(runSize, b - run.first + 1)));
+    const mark = (mask: Uint8Array, a: number, b: number): void => {
+      mask.fill(1, Math.max(0, a - run.first), Math.max(0, Math.min(runSize, b - run.first + 1)));
+    };
     const inside = (spans: readonly [number, number][], mask: Uint8Array, k: number): boolean =>
       k >= run.first && k <= run.last ? mask[k - run.first] === 1 : spans.some(([a, b]) => k >= a && k <= b);
     for (const seed of seeds) {
