@@ -6,8 +6,11 @@ import { mkdirSync, rmSync } from 'node:fs';
 import { CHROMIUM } from './support/require-tool.ts';
 import { BROWSER_HOST_FOLDER, BROWSER_UNTITLED_FOLDER, BROWSER_WORKSPACE } from './support/browser-host-folders.ts';
 
-/** Port for the test host; away from the `npm start` default so both can run. */
-const TEST_HOST_PORT = 5742;
+/**
+ * Port for the test host; away from the `npm start` default so both can run.
+ * STEMLINE_TEST_PORT moves it, so that two checkouts can run their browser tests at once.
+ */
+const TEST_HOST_PORT = Number(process.env.STEMLINE_TEST_PORT ?? 5742);
 
 // The host's workspace and recovery folder start empty on every run. Playwright loads
 // this file again in each worker (TEST_WORKER_INDEX set), where nothing is removed.
