@@ -41,6 +41,7 @@ import { fitStretchWithin, type CurveEnd, type StretchFit, type StretchSettings 
 import { sharpenCorners } from './corner-sharpening.ts';
 import { fixCrossingHandles, mergeSegments, smoothShallowCorners } from './finishing.ts';
 import { roundToGrid } from './grid-rounding.ts';
+import { cornerTinyCurves } from './tiny-curves.ts';
 import { fitSmoothContour } from './smooth-fit.ts';
 import { fairSmoothJoins } from './fairing.ts';
 import { contourReport, type ContourFitReport } from './quality-report.ts';
@@ -104,7 +105,10 @@ export function fitContour(points: readonly Point[], options: FitOptions = {}): 
   let result: ContourFit | undefined;
   for (let attempt = 0; attempt <= ROUNDING_RETRIES; attempt++) {
     const settings: StageSettings = { options: resolved, pixel, fitTolerance: Math.max(resolved.tolerance / 2, resolved.tolerance - reserve), noise };
-    let fitted = resolved.mode === 'smooth' ? fitSmoothContour(chain, { tolerance: settings.fitTolerance, pixel }, corners) : economyFit(chain, corners, runs, settings);
+    let fitted =
+      resolved.mode === 'smooth'
+        ? fitSmoothContour(chain, { tolerance: settings.fitTolerance, pixel }, corners)
+        : cornerTinyCurves(chain, economyFit(chain, corners, runs, settings), settings.fitTolerance, resolved.grid, pixel, resolved.forcedSmooth.map(toChain));
     if (resolved.fairing) fitted = fairSmoothJoins(chain, fitted, settings.fitTolerance);
     const rounded = roundToGrid(chain, fitted, resolved.grid, resolved.tolerance);
     const segments: OutlineSegment[] = rounded.spans.map((span) => span.segment);

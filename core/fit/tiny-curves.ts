@@ -1,0 +1,175 @@
+/**
+ * Tiny curves turned into corners: a cubic a few grid cells long between two other
+ * segments is replaced by the corner where its neighbours' tangent lines meet, when
+ * that corner stays within the tolerance of the scan.
+ *
+ * Why: such a curve is the fit's picture of a rounded tip too small to draw (a blunted
+ * join of a diagonal and a serif, a pen's corner softened by the ink). On the unit grid
+ * it cannot join its neighbours smoothly: its handles are at most a few cells long, and
+ * a handle that short can point only in a few directions (a lattice vector of length
+ * ≤ 4 cells misses most directions by several degrees), so rounding leaves a near-miss
+ * kink at one or both ends, the flaw a type designer looks for first. Nor can a round
+ * that small be seen in print. The corner it stands for has neither problem: a corner's
+ * turn is whatever it is, and the tiny segment (a warning of its own) is gone.
+ *
+ * A curve is only replaced where its neighbours turn by more than a kink would (so
+ * the new corner is not itself a near-miss), where the corner lies on the neighbours'
+ * tangent lines on the far side of the curve, within the tolerance of every traced
+ * point the curve stood for, and where the neighbours, re-ended at the corner, stay
+ * within the tolerance of their own points with no extremum pushed inside them. Points
+ * a user forced smooth are never touched.
+ */
+import type { Point, Vec } from '../geometry/vector.ts';
+import { normalize } from '../geometry/vector.ts';
+import { cubic, line, type CubicSegment, type LineSegment } from '../geometry/segment.ts';
+import { nearestPoint } from '../geometry/nearest.ts';
+import { arcAt, type BoundaryChain } from './boundary-chain.ts';
+import { intersectLines } from './corners.ts';
+import { EXTREMUM_PROTRUSION_LIMIT, segmentExtrema } from './extrema.ts';
+import type { FitNode, FitSpan, FittedContour } from './fitted-contour.ts';
+import { measureSpanError } from './span-error.ts';
+
+/**
+ * Longest chord (grid cells) of a curve treated as tiny: 4. Lattice directions of
+ * length ≤ 4 cells leave gaps of up to 14° (between (1, 0) and (4, 1)), so a handle that
+ * short misses a neighbour's direction by up to 7°, inside the 0.3°–8° kink band;
+ * longer curves can carry handles long enough to point within a fraction of a degree.
+ */
+export const TINY_CURVE_CELLS = 4;
+/**
+ * Smallest turn (degrees) of a corner that replaces a tiny curve: 8°, the upper end of
+ * the near-miss kink band (a turn of 0.3°–8° reads as a mistake, not a corner; common
+ * practice in outline checking).
+ */
+export const TINY_CURVE_MIN_TURN_DEGREES = 8;
+/** Arc (px) around a user-forced smooth point within which no curve is replaced, as corners.ts keeps corners away from one. */
+const FORCED_SMOOTH_CLEARANCE_PX = 2;
+
+/** The direction of travel at a segment's end (atEnd) or start. */
+function endDirection(segment: LineSegment | CubicSegment, atEnd: boolean): Vec | undefined {
+  let d: Vec;
+  if (segment.kind === 'line') d = { x: segment.p1.x - segment.p0.x, y: segment.p1.y - segment.p0.y };
+  else if (atEnd) d = segment.p3.x !== segment.p2.x || segment.p3.y !== segment.p2.y ? { x: segment.p3.x - segment.p2.x, y: segment.p3.y - segment.p2.y } : { x: segment.p3.x - segment.p1.x, y: segment.p3.y - segment.p1.y };
+  else d = segment.p1.x !== segment.p0.x || segment.p1.y !== segment.p0.y ? { x: segment.p1.x - segment.p0.x, y: segment.p1.y - segment.p0.y } : { x: segment.p2.x - segment.p0.x, y: segment.p2.y - segment.p0.y };
+  if (d.x === 0 && d.y === 0) return undefined;
+  return normalize(d);
+}
+
+/** The segment with its end (atEnd) or start moved to `point`; a cubic keeps its handles, hence its tangent there. */
+function reEnded(segment: LineSegment | CubicSegment, atEnd: boolean, point: Point): LineSegment | CubicSegment {
+  if (segment.kind === 'line') return atEnd ? line(segment.p0, point) : line(point, segment.p1);
+  return atEnd ? cubic(segment.p0, segment.p1, segment.p2, point) : cubic(point, segment.p1, segment.p2, segment.p3);
+}
+
+function protrudes(segment: LineSegment | CubicSegment): boolean {
+  return segment.kind === 'cubic' && segmentExtrema(segment).some((e) => e.protrusion > EXTREMUM_PROTRUSION_LIMIT);
+}
+
+/**
+ * The contour with its tiny curves replaced by corners (see the header). `grid` is the
+ * unit grid the contour will be rounded to; `forcedSmooth` are chain indices the user
+ * forced smooth; `pixel` is the scan pixel in font units. Repeats until no curve is
+ * replaced; a contour of three segments or fewer is returned unchanged, and so is the
+ * segment that closes the contour.
+ */
+export function cornerTinyCurves(chain: BoundaryChain, contour: FittedContour, tolerance: number, grid: number, pixel: number, forcedSmooth: readonly number[] = []): FittedContour {
+  let nodes = [...contour.nodes];
+  let spans = [...contour.spans];
+  const maxChord = TINY_CURVE_CELLS * grid;
+  const minTurn = (TINY_CURVE_MIN_TURN_DEGREES * Math.PI) / 180;
+  const clearance = FORCED_SMOOTH_CLEARANCE_PX * pixel;
+  const nearForcedSmooth = (first: number, last: number): boolean => {
+    const from = arcAt(chain, first) - clearance;
+    const to = arcAt(chain, Math.max(first, last)) + clearance;
+    return forcedSmooth.some((index) => [-1, 0, 1].some((lap) => {
+      const s = arcAt(chain, index) + lap * chain.perimeter;
+      return s >= from && s <= to;
+    }));
+  };
+  let changed = true;
+  while (changed && spans.length > 3) {
+    changed = false;
+    const n = spans.length;
+    // The last span, which closes the contour onto node 0, is left alone: replacing it
+    // would move the contour's start (and the node order the chain indices follow).
+    for (let i = 0; i < n - 1; i++) {
+      const tiny = spans[i]!;
+      if (tiny.segment.kind !== 'cubic') continue;
+      const { p0, p3 } = tiny.segment;
+      if (Math.hypot(p3.x - p0.x, p3.y - p0.y) > maxChord) continue;
+      if (nearForcedSmooth(tiny.first, tiny.last)) continue;
+      const before = spans[(i - 1 + n) % n]!;
+      const after = spans[(i + 1) % n]!;
+      const incoming = endDirection(before.segment, true);
+      const outgoing = endDirection(after.segment, false);
+      if (!incoming || !outgoing) continue;
+      const turn = Math.abs(Math.atan2(incoming.x * outgoing.y - incoming.y * outgoing.x, incoming.x * outgoing.x + incoming.y * outgoing.y));
+      if (turn <= minTurn) continue;
+      const corner = intersectLines(p0, incoming, p3, outgoing);
+      if (!corner) continue;
+      // The corner lies ahead of the incoming side and behind the outgoing one.
+      if ((corner.x - p0.x) * incoming.x + (corner.y - p0.y) * incoming.y < 0) continue;
+      if ((p3.x - corner.x) * outgoing.x + (p3.y - corner.y) * outgoing.y < 0) continue;
+      const newBefore = reEnded(before.segment, true, corner);
+      const newAfter = reEnded(after.segment, false, corner);
+      if (protrudes(newBefore) || protrudes(newAfter)) continue;
+      // The tiny curve's own points, against the two sides now meeting at the corner.
+      // Both ways: the traced tip near the new sides, and the new corner near the curve it replaces (no spike).
+      if (tiny.last >= tiny.first && !tipWithin(chain, p0, corner, p3, tiny.first, tiny.last, tolerance)) continue;
+      if (distanceToSegment(corner, tiny.segment) > tolerance) continue;
+      const beforeError = measureSpanError(chain, newBefore, before.first, before.last, tolerance);
+      const afterError = measureSpanError(chain, newAfter, after.first, after.last, tolerance);
+      if (beforeError > Math.max(tolerance, before.maxError) || afterError > Math.max(tolerance, after.maxError)) continue;
+      const cornerNode: FitNode = {
+        point: corner,
+        smooth: false,
+        tangentIn: null,
+        tangentOut: null,
+        extremum: null,
+        corner: null,
+        index: Math.min(nodes[i + 1]!.index, Math.max(nodes[i]!.index, Math.round((tiny.first + tiny.last) / 2))),
+        pinned: true,
+      };
+      const b = (i - 1 + n) % n;
+      const a = (i + 1) % n;
+      const nextSpans = spans.slice();
+      nextSpans[b] = { ...before, segment: newBefore, maxError: beforeError };
+      nextSpans[a] = { ...after, segment: newAfter, maxError: afterError };
+      const nextNodes = nodes.slice();
+      // The tiny span i and its end node i + 1 go; node i becomes the corner, so span
+      // i − 1 arrives at it and the former span i + 1 leaves it.
+      nextNodes[i] = cornerNode;
+      nodes = nextNodes.filter((_, k) => k !== i + 1);
+      spans = nextSpans.filter((_, k) => k !== i);
+      changed = true;
+      break;
+    }
+  }
+  return nodes.length !== contour.nodes.length ? { nodes, spans } : contour;
+}
+
+function distanceToSegment(p: Point, segment: CubicSegment): number {
+  const nearest = nearestPoint(segment, p);
+  return Math.hypot(nearest.point.x - p.x, nearest.point.y - p.y);
+}
+
+/** Every chain point of [first, last] within `tolerance` of the polyline a → corner → b. */
+function tipWithin(chain: BoundaryChain, a: Point, corner: Point, b: Point, first: number, last: number, tolerance: number): boolean {
+  const ax = a.x - chain.origin.x, ay = a.y - chain.origin.y;
+  const cx = corner.x - chain.origin.x, cy = corner.y - chain.origin.y;
+  const bx = b.x - chain.origin.x, by = b.y - chain.origin.y;
+  for (let k = first; k <= last; k++) {
+    const i = ((k % chain.count) + chain.count) % chain.count;
+    const px = chain.xs[i]!, py = chain.ys[i]!;
+    if (Math.min(toSegment(px, py, ax, ay, cx, cy), toSegment(px, py, cx, cy, bx, by)) > tolerance) return false;
+  }
+  return true;
+}
+
+function toSegment(px: number, py: number, ax: number, ay: number, bx: number, by: number): number {
+  const dx = bx - ax, dy = by - ay;
+  const l2 = dx * dx + dy * dy;
+  let t = l2 > 0 ? ((px - ax) * dx + (py - ay) * dy) / l2 : 0;
+  t = t < 0 ? 0 : t > 1 ? 1 : t;
+  return Math.hypot(px - ax - t * dx, py - ay - t * dy);
+}

@@ -1,0 +1,96 @@
+// Tiny curves turned into corners: what a type designer would notice if it broke — a
+// blunted corner a couple of units across left as a curve that kinks against its
+// sides once on the unit grid, or, the other way, a round they drew (or a flat-topped
+// apex) turned into a sharp spike.
+
+import { describe, expect, it } from 'vitest';
+import { prepareChain } from '../../core/fit/boundary-chain.ts';
+import type { FitNode, FitSpan, FittedContour } from '../../core/fit/fitted-contour.ts';
+import { cornerTinyCurves, TINY_CURVE_CELLS } from '../../core/fit/tiny-curves.ts';
+import { cubic, evaluate, line, type CubicSegment, type LineSegment, type Point } from '../../core/geometry/index.ts';
+
+/** A unit vector at `degrees`. */
+const heading = (degrees: number): Point => ({ x: Math.cos((degrees * Math.PI) / 180), y: Math.sin((degrees * Math.PI) / 180) });
+
+/**
+ * A triangle whose apex is a circular round of radius `radius` between two sides,
+ * as a fitted contour (the round one cubic, smooth at both ends), and a chain sampled
+ * along its own segments every 0.25 unit (so the contour lies on its chain exactly).
+ * The sides turn by `turnDegrees` at the apex.
+ */
+function bluntedTriangle(radius: number, turn: number): { chain: ReturnType<typeof prepareChain>['chain']; contour: FittedContour } {
+  // An upward apex: the incoming side rises from the lower left, the outgoing one falls
+  // to the lower right, each at half the opening (180° − turn) from the vertical.
+  const halfOpening = (180 - turn) / 2;
+  const inDir = heading(90 - halfOpening);
+  const outDir = heading(halfOpening - 90);
+  // The sharp apex of the two sides (off the grid), and the round's tangent points at distance d from it.
+  const apex = { x: 150 + Math.SQRT2 / 9, y: 320 + Math.PI / 7 };
+  const d = radius * Math.tan(((turn / 2) * Math.PI) / 180);
+  const a = { x: apex.x - inDir.x * d, y: apex.y - inDir.y * d };
+  const b = { x: apex.x + outDir.x * d, y: apex.y + outDir.y * d };
+  // A circular arc of turn θ as one cubic: handles 4/3·tan(θ/4)·r along the tangents.
+  const h = (4 / 3) * Math.tan(((turn / 4) * Math.PI) / 180) * radius;
+  const round = cubic(a, { x: a.x + inDir.x * h, y: a.y + inDir.y * h }, { x: b.x - outDir.x * h, y: b.y - outDir.y * h }, b);
+  const start = { x: apex.x - inDir.x * 300, y: apex.y - inDir.y * 300 };
+  const end = { x: apex.x + outDir.x * 300, y: apex.y + outDir.y * 300 };
+  const segments: (LineSegment | CubicSegment)[] = [line(start, a), round, line(b, end), line(end, start)];
+  const samples: Point[] = [];
+  const starts: number[] = [];
+  for (const s of segments) {
+    starts.push(samples.length);
+    const p0 = s.p0;
+    const p1 = s.kind === 'line' ? s.p1 : s.p3;
+    const steps = Math.max(4, Math.ceil(Math.hypot(p1.x - p0.x, p1.y - p0.y) * 4));
+    for (let k = 0; k < steps; k++) samples.push(evaluate(s, k / steps));
+  }
+  const { chain } = prepareChain(samples);
+  const tangents = [null, inDir, outDir, null];
+  const nodes: FitNode[] = segments.map((s, k) => {
+    const t = tangents[k] ?? null;
+    return { point: s.p0, smooth: t !== null, tangentIn: t, tangentOut: t, extremum: null, corner: null, index: starts[k]!, pinned: true };
+  });
+  const spans: FitSpan[] = segments.map((segment, k) => ({ segment, first: starts[k]!, last: k < 3 ? starts[k + 1]! : samples.length, maxError: 0, carrier: null }));
+  return { chain, contour: { nodes, spans } };
+}
+
+describe('blunted corners a few units across', () => {
+  it('become the corner where the sides meet, the sides kept on their own lines', () => {
+    for (const turn of [60, 90, 120]) {
+      const { chain, contour } = bluntedTriangle(1, turn);
+      const result = cornerTinyCurves(chain, contour, 1.5, 1, 1);
+      expect(result.nodes).toHaveLength(3);
+      expect(result.spans.every((s) => s.segment.kind === 'line')).toBe(true);
+      const corner = result.nodes[1]!;
+      expect(corner.smooth).toBe(false);
+      // The sides' own directions: the corner lies on both lines (to rounding error).
+      const [before, after] = [contour.spans[0]!.segment as LineSegment, contour.spans[2]!.segment as LineSegment];
+      const offLine = (p: Point, s: LineSegment): number => {
+        const dx = s.p1.x - s.p0.x, dy = s.p1.y - s.p0.y;
+        return Math.abs((p.x - s.p0.x) * dy - (p.y - s.p0.y) * dx) / Math.hypot(dx, dy);
+      };
+      expect(offLine(corner.point, before)).toBeLessThan(1e-9);
+      expect(offLine(corner.point, after)).toBeLessThan(1e-9);
+      for (const span of result.spans) expect(span.maxError).toBeLessThanOrEqual(1.5);
+    }
+  });
+
+  it('leave the fitted contour untouched when the round is larger than the tiny-curve limit', () => {
+    const { chain, contour } = bluntedTriangle(12, 90);
+    const chord = Math.hypot(contour.spans[1]!.segment.p0.x - (contour.spans[1]!.segment as CubicSegment).p3.x, contour.spans[1]!.segment.p0.y - (contour.spans[1]!.segment as CubicSegment).p3.y);
+    expect(chord).toBeGreaterThan(TINY_CURVE_CELLS);
+    expect(cornerTinyCurves(chain, contour, 1.5, 1, 1)).toBe(contour);
+  });
+
+  it('keep a round the designer forced smooth', () => {
+    const { chain, contour } = bluntedTriangle(1.5, 90);
+    const middle = Math.round((contour.spans[1]!.first + contour.spans[1]!.last) / 2);
+    expect(cornerTinyCurves(chain, contour, 1.5, 1, 1, [middle])).toBe(contour);
+  });
+
+  it('do not sharpen an acute apex into a spike beyond the tolerance', () => {
+    // At a 160° turn the sides meet r·(1/sin(10°) − 1) ≈ 4.8 r beyond the round's middle.
+    const { chain, contour } = bluntedTriangle(1.5, 160);
+    expect(cornerTinyCurves(chain, contour, 1.5, 1, 1)).toBe(contour);
+  });
+});
