@@ -7,8 +7,8 @@
  */
 import type { OutlineContour, OutlinePoint } from '../outline/index.ts';
 import { DocumentError } from './document-error.ts';
-import type { DocumentGlyph, GlyphDocument, GlyphId, PointRef, Selection } from './glyph-document.ts';
-import { comparePointRefs, glyphOf } from './glyph-document.ts';
+import type { DocumentGlyph, GlyphDocument, GlyphId, MetricName, MetricOverrides, PointRef, Selection } from './glyph-document.ts';
+import { comparePointRefs, glyphOf, resolveMetrics } from './glyph-document.ts';
 
 /** Contour `contour` of `glyph` goes from `before` to `after`. */
 export interface ContourReplace {
@@ -43,6 +43,13 @@ export interface AdvanceSet {
   readonly after: number;
 }
 
+/** The designer's vertical metrics go from `before` to `after`; the metrics in force follow. */
+export interface MetricsSet {
+  readonly kind: 'metrics.set';
+  readonly before: MetricOverrides;
+  readonly after: MetricOverrides;
+}
+
 /** The selection goes from `before` to `after` (both normalized). */
 export interface SelectionSet {
   readonly kind: 'selection.set';
@@ -50,7 +57,7 @@ export interface SelectionSet {
   readonly after: Selection;
 }
 
-export type Change = ContourReplace | ContourInsert | ContourRemove | AdvanceSet | SelectionSet;
+export type Change = ContourReplace | ContourInsert | ContourRemove | AdvanceSet | MetricsSet | SelectionSet;
 
 /** The change that undoes `change`. */
 export function invertChange(change: Change): Change {
@@ -62,6 +69,8 @@ export function invertChange(change: Change): Change {
     case 'contour.remove':
       return { kind: 'contour.insert', glyph: change.glyph, contour: change.contour, value: change.value };
     case 'advance.set':
+      return { ...change, before: change.after, after: change.before };
+    case 'metrics.set':
       return { ...change, before: change.after, after: change.before };
     case 'selection.set':
       return { ...change, before: change.after, after: change.before };
@@ -82,6 +91,13 @@ export function contoursEqual(a: OutlineContour, b: OutlineContour): boolean {
 
 function pointsIdentical(a: OutlinePoint, b: OutlinePoint): boolean {
   return a.x === b.x && a.y === b.y && a.kind === b.kind && a.smooth === b.smooth;
+}
+
+/** Equality of two sets of designer's metrics (a metric absent and one set to undefined are the same). */
+export function overridesEqual(a: MetricOverrides, b: MetricOverrides): boolean {
+  if (a === b) return true;
+  const names = new Set([...Object.keys(a), ...Object.keys(b)] as MetricName[]);
+  return [...names].every((name) => a[name] === b[name]);
 }
 
 /** Equality of two normalized selections. */
@@ -110,6 +126,10 @@ export function applyChange(document: GlyphDocument, change: Change): GlyphDocum
   if (change.kind === 'selection.set') {
     if (!selectionsEqual(document.selection, change.before)) stale('The selection is not the one this change starts from.');
     return { ...document, selection: change.after };
+  }
+  if (change.kind === 'metrics.set') {
+    if (!overridesEqual(document.metricOverrides, change.before)) stale('The font\'s typed metrics are not the ones this change starts from.');
+    return { ...document, metricOverrides: change.after, metrics: resolveMetrics(document.measuredMetrics, change.after) };
   }
   const glyph = glyphOf(document, change.glyph);
   const contours = glyph.outline.contours;
@@ -154,7 +174,7 @@ export function composeChanges(first: readonly Change[], second: readonly Change
     if (change.kind === 'contour.replace' || change.kind === 'advance.set') {
       for (let i = result.length - 1; i >= 0; i--) {
         const earlier = result[i] as Change;
-        if (earlier.kind === 'selection.set' || earlier.glyph !== change.glyph) continue;
+        if (earlier.kind === 'selection.set' || earlier.kind === 'metrics.set' || earlier.glyph !== change.glyph) continue;
         if (earlier.kind === 'contour.insert' || earlier.kind === 'contour.remove') break;
         if (earlier.kind === 'contour.replace' && change.kind === 'contour.replace' && earlier.contour === change.contour) {
           result[i] = { ...earlier, after: change.after };

@@ -1,7 +1,9 @@
 /**
  * The editable glyph document: immutable state the editor renders and transactions
  * change (in the manner of CodeMirror 6's EditorState). It holds every glyph's outline
- * and horizontal metrics, the font-wide vertical metrics, and the point selection.
+ * and horizontal metrics, the font-wide vertical metrics (the values measured from
+ * the drawing, the ones the designer typed over them, and the two resolved), and the
+ * point selection.
  *
  * Plain readonly data with structural sharing: an edit to one contour makes a new
  * contour, a new contour list for its glyph, a new glyph record and a new glyph table,
@@ -39,7 +41,11 @@ export interface DocumentGlyph {
   readonly advanceWidth: number;
 }
 
-/** Font-wide vertical metrics, font units, y up. */
+/**
+ * Font-wide vertical metrics, font units, y up: what the font's 'head' (unitsPerEm),
+ * 'hhea' and 'OS/2' (typo ascender, descender and line gap, sCapHeight, sxHeight)
+ * tables record (electron/io/font writes them).
+ */
 export interface FontMetrics {
   readonly unitsPerEm: number;
   readonly ascender: number;
@@ -47,7 +53,15 @@ export interface FontMetrics {
   readonly descender: number;
   readonly capHeight: number;
   readonly xHeight: number;
+  /** Extra space between lines, 0 or more. */
+  readonly lineGap: number;
 }
+
+/** The name of one vertical metric. */
+export type MetricName = keyof FontMetrics;
+
+/** The values the designer typed over the measured ones; a metric absent here is the measured value. */
+export type MetricOverrides = Readonly<Partial<Record<MetricName, number>>>;
 
 /**
  * The selected points, kept in canonical order (glyph, contour, point) without
@@ -59,15 +73,40 @@ export interface GlyphDocument {
   readonly glyphs: Readonly<Record<GlyphId, DocumentGlyph>>;
   /** Glyph order of the font; every id in it is a key of `glyphs`. */
   readonly glyphOrder: readonly GlyphId[];
+  /** The metrics in force: each the designer's value where one was typed, else the measured one. */
   readonly metrics: FontMetrics;
+  /** The metrics measured from the drawing: the defaults the designer's values override. */
+  readonly measuredMetrics: FontMetrics;
+  /** The designer's values; changed only by metrics transactions (font-metrics-commands.ts). */
+  readonly metricOverrides: MetricOverrides;
   readonly selection: Selection;
 }
 
-/** Metrics of a 1000-unit em with a 700-unit cap height (common practice for text faces). */
-export const DEFAULT_FONT_METRICS: FontMetrics = { unitsPerEm: 1000, ascender: 800, descender: -200, capHeight: 700, xHeight: 500 };
+/**
+ * Metrics of a 1000-unit em with a 700-unit cap height (common practice for text
+ * faces), and a line gap that tops the 1000-unit ascender-to-descender span up to
+ * 1.2 em of line spacing (core/metrics/line-gap.ts).
+ */
+export const DEFAULT_FONT_METRICS: FontMetrics = { unitsPerEm: 1000, ascender: 800, descender: -200, capHeight: 700, xHeight: 500, lineGap: 200 };
 
-/** A document with the given glyphs (in order), no selection. */
-export function createDocument(glyphs: readonly (DocumentGlyph & { readonly id?: GlyphId })[], metrics: FontMetrics = DEFAULT_FONT_METRICS): GlyphDocument {
+/** The metrics in force: `overrides` over `measured`. */
+export function resolveMetrics(measured: FontMetrics, overrides: MetricOverrides): FontMetrics {
+  const resolved: Record<MetricName, number> = { ...measured };
+  for (const [name, value] of Object.entries(overrides) as [MetricName, number | undefined][]) {
+    if (value !== undefined) resolved[name] = value;
+  }
+  return resolved;
+}
+
+/**
+ * A document with the given glyphs (in order), no selection. `metrics` are the
+ * measured vertical metrics; `overrides` the designer's values over them (none by default).
+ */
+export function createDocument(
+  glyphs: readonly (DocumentGlyph & { readonly id?: GlyphId })[],
+  metrics: FontMetrics = DEFAULT_FONT_METRICS,
+  overrides: MetricOverrides = {},
+): GlyphDocument {
   const table: Record<GlyphId, DocumentGlyph> = {};
   const order: GlyphId[] = [];
   for (const { id, ...glyph } of glyphs) {
@@ -76,7 +115,7 @@ export function createDocument(glyphs: readonly (DocumentGlyph & { readonly id?:
     table[key] = glyph;
     order.push(key);
   }
-  return { glyphs: table, glyphOrder: order, metrics, selection: [] };
+  return { glyphs: table, glyphOrder: order, metrics: resolveMetrics(metrics, overrides), measuredMetrics: metrics, metricOverrides: overrides, selection: [] };
 }
 
 /** The glyph with this id; throws DocumentError('unknown-glyph') when there is none. */

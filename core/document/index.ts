@@ -13,11 +13,14 @@ export {
   isSelected,
   normalizeSelection,
   pointOf,
+  resolveMetrics,
   selectedPointsByContour,
   type DocumentGlyph,
   type FontMetrics,
   type GlyphDocument,
   type GlyphId,
+  type MetricName,
+  type MetricOverrides,
   type PointRef,
   type Selection,
   type Sidebearings,
@@ -28,12 +31,14 @@ export {
   contoursEqual,
   invertChange,
   isSelectionChange,
+  overridesEqual,
   selectionsEqual,
   type AdvanceSet,
   type Change,
   type ContourInsert,
   type ContourRemove,
   type ContourReplace,
+  type MetricsSet,
   type SelectionSet,
 } from './change.ts';
 export { apply, invertTransaction, isSelectionOnly, transaction, type EditReport, type Transaction, type UserEvent } from './transaction.ts';
@@ -57,7 +62,20 @@ export {
 } from './point-commands.ts';
 export { drawContour, drawStretch, refitSelection, refitStretch, selectedStretch, type Stretch } from './stretch-commands.ts';
 export { drawThrough, type DrawnStretch, type DrawPoint } from './draw-through.ts';
+export { replaceStretch, selectedStretchEnds, stretchBetween, type StretchEnds, type StretchSide } from './replace-stretch.ts';
 export { setAdvanceWidth, setLeftSidebearing, setRightSidebearing } from './metrics-commands.ts';
+export {
+  isMetricOverridden,
+  MAX_UNITS_PER_EM,
+  METRIC_LABELS,
+  METRIC_NAMES,
+  metricProblems,
+  metricValueProblem,
+  MIN_UNITS_PER_EM,
+  setFontMetric,
+  useMeasuredMetric,
+  type MetricProblem,
+} from './font-metrics-commands.ts';
 export { fixWarning, hasFix, type FixableWarningKind } from './warning-fixes.ts';
 export { DEVIATION_SAMPLES_PER_SEGMENT, oneSidedDeviation, shapeDeviation } from './shape-deviation.ts';
 export { FIT_SAMPLES_PER_SEGMENT, fitFewestPieces, fitPiece, sampleStretch, type PieceFit, type StretchRefit, type StretchSample } from './stretch-fit.ts';

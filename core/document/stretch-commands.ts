@@ -24,13 +24,15 @@ export interface Stretch {
   readonly to: number;
 }
 
-function contourOf(document: GlyphDocument, glyph: GlyphId, contour: number): OutlineContour {
+/** The contour, or DocumentError('unknown-point'). @internal shared with replace-stretch.ts */
+export function contourOf(document: GlyphDocument, glyph: GlyphId, contour: number): OutlineContour {
   const found = glyphOf(document, glyph).outline.contours[contour];
   if (!found) throw new DocumentError('unknown-point', `Glyph "${glyph}" has no contour ${contour}.`);
   return found;
 }
 
-function ordinals(ring: SegmentRing, stretch: Stretch): { first: number; span: number } {
+/** The stretch's first segment and its count of segments. @internal shared with replace-stretch.ts */
+export function ordinals(ring: SegmentRing, stretch: Stretch): { first: number; span: number } {
   const first = ring.onCurve.indexOf(stretch.from);
   const last = ring.onCurve.indexOf(stretch.to);
   if (first < 0 || last < 0) {
@@ -40,8 +42,8 @@ function ordinals(ring: SegmentRing, stretch: Stretch): { first: number; span: n
   return { first, span: wrap(last - first, n) || n };
 }
 
-/** The on-curve point indices of the replaced run in the new contour (see replaceSegments). */
-function runPoints(contour: OutlineContour, first: number, span: number, oldCount: number, newCount: number): number[] {
+/** The on-curve point indices of the replaced run in the new contour (see replaceSegments). @internal shared with replace-stretch.ts */
+export function runPoints(contour: OutlineContour, first: number, span: number, oldCount: number, newCount: number): number[] {
   const ring = segmentRing(contour);
   const m = ring.segments.length;
   const start = first + span <= oldCount ? first : 0;

@@ -19,8 +19,10 @@ export type UserEvent =
   | 'point.snap'
   | 'stretch.refit'
   | 'stretch.draw'
+  | 'stretch.replace'
   | 'metrics.sidebearing'
   | 'metrics.advance'
+  | 'metrics.font'
   | 'warning.fix'
   | 'selection.set';
 

@@ -6,7 +6,7 @@
 import type { GlyphOutline } from '../outline/index.ts';
 import { contourSegments } from '../outline/index.ts';
 import { boundsOfSegments } from '../geometry/bounds.ts';
-import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, spaceGlyph } from '../metrics/index.ts';
+import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, defaultLineGap, spaceGlyph } from '../metrics/index.ts';
 import type { TracedLetter, TracedLetters } from './trace-letters.ts';
 
 /**
@@ -16,8 +16,6 @@ import type { TracedLetter, TracedLetters } from './trace-letters.ts';
  */
 const FALLBACK_X_HEIGHT_PER_CAP = 0.7;
 const FALLBACK_ASCENDER_PER_CAP = 750 / 700;
-/** Line spacing the line gap tops up to: 1.2 em, a common default for text (common practice). */
-const LINE_SPACING_EM = 1.2;
 
 export interface DraftFontSettings {
   readonly familyName: string;
@@ -116,7 +114,7 @@ export function draftFont(sheets: readonly TracedLetters[], settings: DraftFontS
   const measuredDescender = measuredUnits(sheets, (s) => s.metrics.descender?.pixels);
   // Without a measured descender, typo ascender − descender spans one em (common practice).
   const descender = Math.min(measuredDescender ?? ascender - settings.unitsPerEm, 0);
-  const lineGap = Math.max(0, Math.round(LINE_SPACING_EM * settings.unitsPerEm - (ascender - descender)));
+  const lineGap = defaultLineGap(settings.unitsPerEm, ascender, descender);
   if (inkTop > ascender || inkBottom < descender) notes.push(`Some ink reaches beyond the ascender and descender (${Math.round(inkBottom)} to ${Math.round(inkTop)} units); the font's clipping metrics cover it.`);
   return { familyName: settings.familyName, styleName: settings.styleName, unitsPerEm: settings.unitsPerEm, ascender, descender, lineGap, xHeight, capHeight, glyphs, notes };
 }

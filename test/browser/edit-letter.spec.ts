@@ -41,7 +41,8 @@ test.describe('editing a letter in the browser', () => {
     expect(await numberAttribute(page, 'letter-canvas', 'data-comb-teeth')).toBeGreaterThan(0);
     await expect(page.getByTestId('comb-envelope')).toHaveAttribute('d', /^M.+L/);
     await expect(page.getByTestId('continuity').first()).toHaveAttribute('data-continuity', /^(corner|G1|G2)$/);
-    await expect(page.getByTestId('guide')).toHaveCount(4);
+    // Descender, baseline, x-height, cap height and ascender.
+    await expect(page.getByTestId('guide')).toHaveCount(5);
     await expect(page.getByTestId('sidebearing-line')).toHaveCount(2);
     await page.screenshot({ path: 'test-results/edit-letter.png' });
 

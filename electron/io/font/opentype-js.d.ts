@@ -57,6 +57,8 @@ declare module 'opentype.js/dist/opentype.js' {
     readonly sTypoAscender: number;
     readonly sTypoDescender: number;
     readonly sTypoLineGap: number;
+    readonly usWinAscent: number;
+    readonly usWinDescent: number;
     readonly sxHeight?: number;
     readonly sCapHeight?: number;
   }

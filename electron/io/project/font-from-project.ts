@@ -29,5 +29,7 @@ export function fontSourceFromProject(project: Pick<ProjectData, 'font' | 'glyph
       ...(glyph.leftSidebearing === undefined ? {} : { leftSidebearing: glyph.leftSidebearing }),
     };
   });
-  return { ...project.font, glyphs };
+  // Which metrics the designer typed matters to the editor, not to the font.
+  const { metricsSetByUser: _editorOnly, ...font } = project.font;
+  return { ...font, glyphs };
 }

@@ -4,8 +4,12 @@
 // overrides — as a valibot schema, so a file that was hand-edited or half-synced is
 // refused with the field that is wrong. Format 1 files are read through
 // migrate-format-1.ts. Format 2 changed: a glyph's single `character` became the
-// ordered list `unicodes`, and an embedded scan carries its SHA-256.
+// ordered list `unicodes`, and an embedded scan carries its SHA-256. Later, within
+// format 2, the font gained the optional `metricsSetByUser`: which vertical metrics
+// the designer typed (the others are measured from the drawing). A file without it
+// opens as before (renderer/src/project/saved-metrics.ts says how it is read).
 import * as v from 'valibot';
+import type { MetricName } from '../../../core/document/index.ts';
 
 /** The `format` field's value: tells a Stemline project from any other JSON. */
 export const PROJECT_FORMAT_NAME = 'stemline-project';
@@ -21,6 +25,9 @@ const INT16_MAX = 32767;
 
 const fontUnits = v.pipe(v.number(), v.finite(), v.minValue(-INT16_MAX), v.maxValue(INT16_MAX));
 const positiveUnits = v.pipe(v.number(), v.integer(), v.minValue(16), v.maxValue(16384)); // unitsPerEm range: OpenType 'head' table
+
+/** The vertical metrics a designer can type over the measured ones (core/document font-metrics-commands.ts). */
+export const SAVED_METRIC_NAMES = ['unitsPerEm', 'ascender', 'capHeight', 'xHeight', 'descender', 'lineGap'] as const satisfies readonly MetricName[];
 
 const pointSchema = v.tuple([fontUnits, fontUnits, v.picklist(['on', 'on-smooth', 'off'])]);
 
@@ -105,6 +112,8 @@ export const projectSchema = v.strictObject({
     ascender: fontUnits,
     descender: fontUnits,
     lineGap: v.optional(fontUnits),
+    /** The metrics above that the designer typed; the rest follow the drawing. Absent in files saved before it existed. */
+    metricsSetByUser: v.optional(v.array(v.picklist(SAVED_METRIC_NAMES))),
   }),
   fit: v.strictObject({
     tolerance: v.pipe(v.number(), v.minValue(0.05), v.maxValue(100)),

@@ -6,7 +6,7 @@
  */
 import { createDocument, DEFAULT_FONT_METRICS, type DocumentGlyph, type FontMetrics, type GlyphDocument, type GlyphId } from '../../../core/document/index.ts';
 import { checkOutline, type OutlineWarning } from '../../../core/checks/index.ts';
-import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, spaceGlyph } from '../../../core/metrics/index.ts';
+import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, defaultLineGap, spaceGlyph } from '../../../core/metrics/index.ts';
 import type { Point } from '../../../core/geometry/vector.ts';
 import type { GlyphOutline } from '../../../core/outline/index.ts';
 import type { FittedLetter, FittedSheet } from '../scan/trace-protocol.ts';
@@ -25,15 +25,23 @@ export function letterGlyphId(letter: FittedLetter): GlyphId {
   return `letter-${letter.index + 1}`;
 }
 
-/** Font metrics from the sheet: measured heights, the em's defaults where not measured. */
+/**
+ * Font metrics from the sheet: measured heights, the em's defaults where not
+ * measured, and the line gap that tops the lines up to 1.2 em (core/metrics/line-gap.ts).
+ * These are the defaults the designer's values override.
+ */
 export function fontMetricsOf(sheet: FittedSheet): FontMetrics {
   const round = (v: number | null, fallback: number) => (v === null ? fallback : Math.round(v));
+  const unitsPerEm = DEFAULT_FONT_METRICS.unitsPerEm;
+  const ascender = round(sheet.metrics.ascender, DEFAULT_FONT_METRICS.ascender);
+  const descender = round(sheet.metrics.descender, DEFAULT_FONT_METRICS.descender);
   return {
-    unitsPerEm: DEFAULT_FONT_METRICS.unitsPerEm,
+    unitsPerEm,
     capHeight: Math.round(sheet.metrics.capHeight),
     xHeight: round(sheet.metrics.xHeight, DEFAULT_FONT_METRICS.xHeight),
-    ascender: round(sheet.metrics.ascender, DEFAULT_FONT_METRICS.ascender),
-    descender: round(sheet.metrics.descender, DEFAULT_FONT_METRICS.descender),
+    ascender,
+    descender,
+    lineGap: defaultLineGap(unitsPerEm, ascender, descender),
   };
 }
 

@@ -1,30 +1,51 @@
 /**
- * What the canvas draws for an outline, computed in screen pixels: the outline as SVG
- * path data, the on-curve points (corners and smooth points told apart), the handles
+ * What the canvas draws for an outline, computed in screen pixels: the outline (and
+ * one contour, or a stretch of one, for the redraw preview) as SVG path data, the on-curve points (corners and smooth points told apart), the handles
  * and the lines tying each handle to its on-curve point.
  */
 import type { Point } from '../../../core/geometry/vector.ts';
-import { contourSegments, type GlyphOutline, type OutlineContour } from '../../../core/outline/index.ts';
+import { contourSegments, type GlyphOutline, type OutlineContour, type OutlineSegment } from '../../../core/outline/index.ts';
 import { toScreen, type ViewTransform } from './view-transform.ts';
 
 function fmt(n: number): string {
   return (Math.round(n * 100) / 100).toString();
 }
 
+function openPathData(segments: readonly OutlineSegment[], view: ViewTransform): string {
+  const first = segments[0];
+  if (!first) return '';
+  const s = (p: Point) => {
+    const q = toScreen(view, p);
+    return `${fmt(q.x)} ${fmt(q.y)}`;
+  };
+  return `M${s(first.p0)}` + segments.map((g) => (g.kind === 'line' ? `L${s(g.p1)}` : `C${s(g.p1)} ${s(g.p2)} ${s(g.p3)}`)).join('');
+}
+
+/** SVG path data of one closed contour at this view (M/L/C/Z, absolute screen pixels). */
+export function contourPathData(contour: OutlineContour, view: ViewTransform): string {
+  const path = openPathData(contourSegments(contour), view);
+  return path === '' ? '' : `${path}Z`;
+}
+
 /** SVG path data of the whole outline at this view (M/L/C/Z, absolute screen pixels). */
 export function outlinePathData(outline: GlyphOutline, view: ViewTransform): string {
-  return outline.contours
-    .map((contour) => {
-      const segments = contourSegments(contour);
-      const first = segments[0];
-      if (!first) return '';
-      const s = (p: Point) => {
-        const q = toScreen(view, p);
-        return `${fmt(q.x)} ${fmt(q.y)}`;
-      };
-      return `M${s(first.p0)}` + segments.map((g) => (g.kind === 'line' ? `L${s(g.p1)}` : `C${s(g.p1)} ${s(g.p2)} ${s(g.p3)}`)).join('') + 'Z';
-    })
-    .join('');
+  return outline.contours.map((contour) => contourPathData(contour, view)).join('');
+}
+
+/**
+ * SVG path data (open) of the stretch of `contour` from on-curve point index `from`
+ * forward to on-curve point index `to`; the whole contour when they are the same.
+ * Empty when either is not an on-curve point.
+ */
+export function stretchPathData(contour: OutlineContour, from: number, to: number, view: ViewTransform): string {
+  const segments = contourSegments(contour);
+  const onCurve = contour.points.flatMap((p, i) => (p.kind === 'on' ? [i] : []));
+  const first = onCurve.indexOf(from);
+  const last = onCurve.indexOf(to);
+  if (first < 0 || last < 0 || segments.length === 0) return '';
+  const n = segments.length;
+  const span = (last - first + n) % n || n;
+  return openPathData(Array.from({ length: span }, (_, k) => segments[(first + k) % n] as OutlineSegment), view);
 }
 
 /** One drawn point: where it is in font units and on screen, and what it is. */

@@ -1,7 +1,7 @@
 // The project file's contents built from what the user has in the window: the scan
 // (embedded, with the characters assigned on it), every fitted letter's glyph as
 // edited (characters, outline, advance width, which letter of the scan it is), the
-// font's vertical metrics, and — from the project that was opened — every setting
+// font's vertical metrics and which of them the designer typed (saved-metrics.ts), and — from the project that was opened — every setting
 // and glyph the window does not edit, kept as it was.
 import type { DocumentGlyph, GlyphDocument } from '../../../core/document/index.ts';
 import { outlineToJson } from '../../../core/outline/index.ts';
@@ -9,6 +9,7 @@ import { newProject } from '../../../electron/io/project/new-project.ts';
 import { unicodeHexOf } from '../../../electron/io/project/project-unicodes.ts';
 import type { EmbeddedScan, ProjectData, ProjectGlyph, ProjectScan } from '../../../electron/io/project/project-schema.ts';
 import type { EditableLetter } from '../editor/letter-document.ts';
+import { savedMetricFields } from './saved-metrics.ts';
 
 /** Id of the scan in a project started in the window. */
 export const FIRST_SCAN_ID = 'scan-1';
@@ -55,13 +56,11 @@ export function projectContent(content: WindowContent): ProjectData {
         return glyph ? [glyphOfLetter(glyph, letter, scanId, savedGlyph(letter.letter.index))] : [];
       })
     : [];
-  const metrics = content.editing?.document.metrics;
+  const document = content.editing?.document;
   return {
     format: start.format,
     formatVersion: start.formatVersion,
-    font: metrics
-      ? { ...start.font, unitsPerEm: metrics.unitsPerEm, capHeight: metrics.capHeight, xHeight: metrics.xHeight, ascender: metrics.ascender, descender: metrics.descender }
-      : start.font,
+    font: document ? { ...start.font, ...savedMetricFields(document) } : start.font,
     fit: start.fit,
     scans,
     glyphs: [...letterGlyphs, ...content.carried],

@@ -2,13 +2,15 @@
 // its letters fitted again (for where each letter sits on the scan and the fit's
 // warnings), and each saved glyph replaces its letter's fresh outline with the one
 // the user edited, with its advance width and characters, so editing continues where
-// it was left. Vertical metrics are the project's.
+// it was left. Vertical metrics are measured from the scan again, with the designer's
+// values from the project over them (saved-metrics.ts).
 import { createDocument, type DocumentGlyph, type GlyphDocument, type GlyphId } from '../../../core/document/index.ts';
 import { outlineFromJson } from '../../../core/outline/index.ts';
 import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT } from '../../../core/metrics/index.ts';
 import type { ProjectData, ProjectGlyph } from '../../../electron/io/project/project-schema.ts';
 import type { FittedSheet } from '../scan/trace-protocol.ts';
 import { fontMetricsOf, letterDocument, letterGlyphId, type EditableLetter } from '../editor/letter-document.ts';
+import { savedMetricOverrides } from './saved-metrics.ts';
 
 /** A project whose letters no longer match its scan; the message is for the user. */
 export class RestoreError extends Error {
@@ -56,6 +58,6 @@ export function restoredLetters(sheet: FittedSheet, glyphs: readonly ProjectGlyp
   if (new Set(letters.map((l) => l.id)).size !== letters.length) {
     throw new RestoreError(`${projectName}: two glyphs belong to the same letter of the scan. The file has not been changed; fix it by hand or open its recovery copy.`);
   }
-  const metrics = { unitsPerEm: font.unitsPerEm, capHeight: font.capHeight, xHeight: font.xHeight, ascender: font.ascender, descender: font.descender };
-  return { sheet: { ...sheet, letters: letters.map((l) => l.letter) }, document: createDocument(documentGlyphs, metrics), letters };
+  const measured = fontMetricsOf(sheet);
+  return { sheet: { ...sheet, letters: letters.map((l) => l.letter) }, document: createDocument(documentGlyphs, measured, savedMetricOverrides(font, measured)), letters };
 }
