@@ -6,8 +6,7 @@
  * Why: such a curve is the fit's picture of a rounded tip too small to draw (a blunted
  * join of a diagonal and a serif, a pen's corner softened by the ink). On the unit grid
  * it cannot join its neighbours smoothly: its handles are at most a few cells long, and
- * a handle that short can point only in a few directions (a lattice vector of length
- * ≤ 4 cells misses most directions by several degrees), so rounding leaves a near-miss
+ * a handle that short can point only in a few directions (see TINY_CURVE_CELLS), so rounding leaves a near-miss
  * kink at one or both ends, the flaw a type designer looks for first. Nor can a round
  * that small be seen in print. The corner it stands for has neither problem: a corner's
  * turn is whatever it is, and the tiny segment (a warning of its own) is gone.
@@ -30,12 +29,14 @@ import type { FitNode, FitSpan, FittedContour } from './fitted-contour.ts';
 import { measureSpanError } from './span-error.ts';
 
 /**
- * Longest chord (grid cells) of a curve treated as tiny: 4. Lattice directions of
- * length ≤ 4 cells leave gaps of up to 14° (between (1, 0) and (4, 1)), so a handle that
- * short misses a neighbour's direction by up to 7°, inside the 0.3°–8° kink band;
- * longer curves can carry handles long enough to point within a fraction of a degree.
+ * Longest chord (grid cells) of a curve treated as tiny: 6. A curve that short has
+ * handles of a few cells at most, and lattice directions of length ≤ 6 cells leave gaps
+ * of up to 9.5° (between (1, 0) and (6, 1)), so such a handle misses a neighbour's
+ * direction by up to about 5°, inside the 0.3°–8° kink band. Measured on the round trip
+ * (Cantarell, rough copy): at 4 cells the 5-unit blunted apex of the 4 stayed a curve
+ * with its top inside it; at 6 it is the corner the font has.
  */
-export const TINY_CURVE_CELLS = 4;
+export const TINY_CURVE_CELLS = 6;
 /**
  * Smallest turn (degrees) of a corner that replaces a tiny curve: 8°, the upper end of
  * the near-miss kink band (a turn of 0.3°–8° reads as a mistake, not a corner; common
@@ -90,13 +91,19 @@ export function cornerTinyCurves(chain: BoundaryChain, contour: FittedContour, t
   while (changed && spans.length > 3) {
     changed = false;
     const n = spans.length;
-    // The last span, which closes the contour onto node 0, is left alone: replacing it
-    // would move the contour's start (and the node order the chain indices follow).
-    for (let i = 0; i < n - 1; i++) {
+    // The shortest curves first: replacing one changes its neighbours, and a shorter
+    // curve is the surer picture of a corner. The last span, which closes the contour
+    // onto node 0, is left alone: replacing it would move the contour's start (and the
+    // node order the chain indices follow).
+    const chordOf = (k: number): number => {
+      const segment = spans[k]!.segment;
+      return segment.kind === 'cubic' ? Math.hypot(segment.p3.x - segment.p0.x, segment.p3.y - segment.p0.y) : Infinity;
+    };
+    const candidates = spans.map((_, k) => k).filter((k) => k < n - 1 && chordOf(k) <= maxChord).sort((a, b) => chordOf(a) - chordOf(b));
+    for (const i of candidates) {
       const tiny = spans[i]!;
       if (tiny.segment.kind !== 'cubic') continue;
       const { p0, p3 } = tiny.segment;
-      if (Math.hypot(p3.x - p0.x, p3.y - p0.y) > maxChord) continue;
       if (nearForcedSmooth(tiny.first, tiny.last)) continue;
       const before = spans[(i - 1 + n) % n]!;
       const after = spans[(i + 1) % n]!;
