@@ -55,7 +55,10 @@ export interface FitOptions {
   readonly mode?: FitMode;
   /**
    * Make smooth joins curvature-continuous (G2) where the tolerance allows, by
-   * adjusting handle lengths along their tangents (fairing.ts). Default {@link DEFAULT_FAIRING}.
+   * adjusting handle lengths along their tangents (fairing.ts). Default
+   * {@link DEFAULT_FAIRING} in economy mode; on in smooth mode, whose point is curvature
+   * continuity (its reduction to fewer points merges C² pieces into G1 joins, which
+   * fairing makes G2 again).
    */
   readonly fairing?: boolean;
 }
@@ -126,6 +129,13 @@ export const DEFAULT_FIT_MODE: FitMode = 'economy';
 export const DEFAULT_FAIRING = false;
 
 /**
+ * Smooth mode fairs unless told not to. Measured on traced Cantarell D O S C G o c e
+ * (1 px per unit): median relative curvature step at smooth cubic joins after rounding
+ * 7.2 % without fairing, 3.3 % with it; before rounding 7.9 % and 0.
+ */
+export const SMOOTH_MODE_FAIRING = true;
+
+/**
  * The options with defaults filled in. Throws a RangeError naming the option for
  * values that cannot work (non-positive tolerance or grid, angles outside (0°, 180°),
  * an unknown mode).
@@ -153,6 +163,6 @@ export function resolveFitOptions(options: FitOptions = {}): ResolvedFitOptions 
     pixelSize: options.pixelSize,
     scanBlurPx: options.scanBlurPx,
     mode,
-    fairing: options.fairing ?? DEFAULT_FAIRING,
+    fairing: options.fairing ?? (mode === 'smooth' ? SMOOTH_MODE_FAIRING : DEFAULT_FAIRING),
   };
 }

@@ -503,11 +503,12 @@ describeWithFont('smooth mode through fitContour on a traced Cantarell "D"', CAN
     expectSmoothOutlineHolds(contours);
   });
 
-  // Known shortfall, kept as an expected failure so that fixing it shows: merged cubics
-  // are G1 only and rounding reopens steps, so the smooth mode's joins are not yet more
-  // curvature-continuous than the economy mode's. Measured medians of the relative
-  // curvature step (relativeCurvatureSteps) after rounding: smooth 6.7 % over 10 joins,
-  // economy 2.1 % over 2 joins.
+  // Known shortfall, kept as an expected failure so that fixing it shows: rounding to
+  // the unit grid reopens curvature steps, most at flat joins where both curvatures are
+  // small. Measured medians of the relative curvature step (relativeCurvatureSteps) after
+  // rounding: smooth mode (which fairs its joins) 4.1 % over 10 joins, economy 2.4 % over
+  // 2 joins. Over D O S C G o c e: smooth 3.3 % (7.2 % before smooth mode faired), economy
+  // 2.5 %, economy with fairing 0.9 %.
   it.fails('is more curvature-continuous at smooth joins than the economy mode (median relative curvature step)', () => {
     const smoothSteps = contours.flatMap((points) => relativeCurvatureSteps(fitContour(points, { mode: 'smooth' })));
     const economySteps = contours.flatMap((points) => relativeCurvatureSteps(fitContour(points)));
