@@ -15,8 +15,11 @@
  * the new corner is not itself a near-miss), where the corner lies on the neighbours'
  * tangent lines on the far side of the curve, within the tolerance of every traced
  * point the curve stood for, and where the neighbours, re-ended at the corner, stay
- * within the tolerance of their own points with no extremum pushed inside them. Points
- * a user forced smooth are never touched.
+ * within the tolerance of their own points with no extremum pushed inside them. Where
+ * the sides run too nearly parallel to meet near the curve (the flat top of a narrow
+ * apex or stroke end), the curve becomes its straight chord between two corners
+ * instead, when both turn by more than a kink and the chord holds the traced points
+ * within the tolerance. Points a user forced smooth are never touched.
  */
 import type { Point, Vec } from '../geometry/vector.ts';
 import { normalize } from '../geometry/vector.ts';
@@ -88,6 +91,7 @@ export function cornerTinyCurves(chain: BoundaryChain, contour: FittedContour, t
     }));
   };
   let changed = true;
+  let anyChange = false;
   while (changed && spans.length > 3) {
     changed = false;
     const n = spans.length;
@@ -101,58 +105,94 @@ export function cornerTinyCurves(chain: BoundaryChain, contour: FittedContour, t
     };
     const candidates = spans.map((_, k) => k).filter((k) => k < n - 1 && chordOf(k) <= maxChord).sort((a, b) => chordOf(a) - chordOf(b));
     for (const i of candidates) {
-      const tiny = spans[i]!;
-      if (tiny.segment.kind !== 'cubic') continue;
-      const { p0, p3 } = tiny.segment;
-      if (nearForcedSmooth(tiny.first, tiny.last)) continue;
-      const before = spans[(i - 1 + n) % n]!;
-      const after = spans[(i + 1) % n]!;
-      const incoming = endDirection(before.segment, true);
-      const outgoing = endDirection(after.segment, false);
-      if (!incoming || !outgoing) continue;
-      const turn = Math.abs(Math.atan2(incoming.x * outgoing.y - incoming.y * outgoing.x, incoming.x * outgoing.x + incoming.y * outgoing.y));
-      if (turn <= minTurn) continue;
-      const corner = intersectLines(p0, incoming, p3, outgoing);
-      if (!corner) continue;
-      // The corner lies ahead of the incoming side and behind the outgoing one.
-      if ((corner.x - p0.x) * incoming.x + (corner.y - p0.y) * incoming.y < 0) continue;
-      if ((p3.x - corner.x) * outgoing.x + (p3.y - corner.y) * outgoing.y < 0) continue;
-      const newBefore = reEnded(before.segment, true, corner);
-      const newAfter = reEnded(after.segment, false, corner);
-      if (protrudes(newBefore) || protrudes(newAfter)) continue;
-      // The tiny curve's own points, against the two sides now meeting at the corner.
-      // Both ways: the traced tip near the new sides, and the new corner near the curve it replaces (no spike).
-      if (tiny.last >= tiny.first && !tipWithin(chain, p0, corner, p3, tiny.first, tiny.last, tolerance)) continue;
-      if (distanceToSegment(corner, tiny.segment) > tolerance) continue;
-      const beforeError = measureSpanError(chain, newBefore, before.first, before.last, tolerance);
-      const afterError = measureSpanError(chain, newAfter, after.first, after.last, tolerance);
-      if (beforeError > Math.max(tolerance, before.maxError) || afterError > Math.max(tolerance, after.maxError)) continue;
-      const cornerNode: FitNode = {
-        point: corner,
-        smooth: false,
-        tangentIn: null,
-        tangentOut: null,
-        extremum: null,
-        corner: null,
-        index: Math.min(nodes[i + 1]!.index, Math.max(nodes[i]!.index, Math.round((tiny.first + tiny.last) / 2))),
-        pinned: true,
-      };
-      const b = (i - 1 + n) % n;
-      const a = (i + 1) % n;
-      const nextSpans = spans.slice();
-      nextSpans[b] = { ...before, segment: newBefore, maxError: beforeError };
-      nextSpans[a] = { ...after, segment: newAfter, maxError: afterError };
-      const nextNodes = nodes.slice();
-      // The tiny span i and its end node i + 1 go; node i becomes the corner, so span
-      // i − 1 arrives at it and the former span i + 1 leaves it.
-      nextNodes[i] = cornerNode;
-      nodes = nextNodes.filter((_, k) => k !== i + 1);
-      spans = nextSpans.filter((_, k) => k !== i);
+      if (nearForcedSmooth(spans[i]!.first, spans[i]!.last)) continue;
+      const replaced = asCorner(chain, nodes, spans, i, tolerance, minTurn) ?? asBevel(chain, nodes, spans, i, tolerance, minTurn);
+      if (!replaced) continue;
+      nodes = replaced.nodes;
+      spans = replaced.spans;
       changed = true;
+      anyChange = true;
       break;
     }
   }
-  return nodes.length !== contour.nodes.length ? { nodes, spans } : contour;
+  return anyChange ? { nodes, spans } : contour;
+}
+
+type Contour = { nodes: FitNode[]; spans: FitSpan[] };
+
+/** Span i (a tiny cubic) replaced by the corner where its neighbours' tangent lines meet, or undefined where that does not hold (see the header). */
+function asCorner(chain: BoundaryChain, nodes: readonly FitNode[], spans: readonly FitSpan[], i: number, tolerance: number, minTurn: number): Contour | undefined {
+  const n = spans.length;
+  const tiny = spans[i]!;
+  if (tiny.segment.kind !== 'cubic') return undefined;
+  const { p0, p3 } = tiny.segment;
+  const before = spans[(i - 1 + n) % n]!;
+  const after = spans[(i + 1) % n]!;
+  const incoming = endDirection(before.segment, true);
+  const outgoing = endDirection(after.segment, false);
+  if (!incoming || !outgoing || turnBetween(incoming, outgoing) <= minTurn) return undefined;
+  const corner = intersectLines(p0, incoming, p3, outgoing);
+  if (!corner) return undefined;
+  // The corner lies ahead of the incoming side and behind the outgoing one.
+  if ((corner.x - p0.x) * incoming.x + (corner.y - p0.y) * incoming.y < 0) return undefined;
+  if ((p3.x - corner.x) * outgoing.x + (p3.y - corner.y) * outgoing.y < 0) return undefined;
+  const newBefore = reEnded(before.segment, true, corner);
+  const newAfter = reEnded(after.segment, false, corner);
+  if (protrudes(newBefore) || protrudes(newAfter)) return undefined;
+  // Both ways: the traced tip near the new sides, and the new corner near the curve it replaces (no spike).
+  if (tiny.last >= tiny.first && !tipWithin(chain, [p0, corner, p3], tiny.first, tiny.last, tolerance)) return undefined;
+  if (distanceToSegment(corner, tiny.segment) > tolerance) return undefined;
+  const beforeError = measureSpanError(chain, newBefore, before.first, before.last, tolerance);
+  const afterError = measureSpanError(chain, newAfter, after.first, after.last, tolerance);
+  if (beforeError > Math.max(tolerance, before.maxError) || afterError > Math.max(tolerance, after.maxError)) return undefined;
+  const cornerNode: FitNode = {
+    point: corner,
+    smooth: false,
+    tangentIn: null,
+    tangentOut: null,
+    extremum: null,
+    corner: null,
+    index: Math.min(nodes[i + 1]!.index, Math.max(nodes[i]!.index, Math.round((tiny.first + tiny.last) / 2))),
+    pinned: true,
+  };
+  const nextSpans = spans.slice();
+  nextSpans[(i - 1 + n) % n] = { ...before, segment: newBefore, maxError: beforeError };
+  nextSpans[(i + 1) % n] = { ...after, segment: newAfter, maxError: afterError };
+  const nextNodes = nodes.slice();
+  // The tiny span i and its end node i + 1 go; node i becomes the corner, so span
+  // i − 1 arrives at it and the former span i + 1 leaves it.
+  nextNodes[i] = cornerNode;
+  return { nodes: nextNodes.filter((_, k) => k !== i + 1), spans: nextSpans.filter((_, k) => k !== i) };
+}
+
+/**
+ * Span i (a tiny cubic) replaced by the straight chord between its ends, both ends
+ * corners: the flat top of a narrow apex or stroke end, whose sides run too nearly
+ * parallel to meet near it. Undefined unless both new corners turn by more than a kink
+ * and every traced point of the curve is within the tolerance of the chord.
+ */
+function asBevel(chain: BoundaryChain, nodes: readonly FitNode[], spans: readonly FitSpan[], i: number, tolerance: number, minTurn: number): Contour | undefined {
+  const n = spans.length;
+  const tiny = spans[i]!;
+  if (tiny.segment.kind !== 'cubic') return undefined;
+  const { p0, p3 } = tiny.segment;
+  if (p0.x === p3.x && p0.y === p3.y) return undefined;
+  const chord = normalize({ x: p3.x - p0.x, y: p3.y - p0.y });
+  const incoming = endDirection(spans[(i - 1 + n) % n]!.segment, true);
+  const outgoing = endDirection(spans[(i + 1) % n]!.segment, false);
+  if (!incoming || !outgoing || turnBetween(incoming, chord) <= minTurn || turnBetween(chord, outgoing) <= minTurn) return undefined;
+  if (tiny.last >= tiny.first && !tipWithin(chain, [p0, p3], tiny.first, tiny.last, tolerance)) return undefined;
+  const bevel = line(p0, p3);
+  const nextSpans = spans.slice();
+  nextSpans[i] = { ...tiny, segment: bevel, maxError: tiny.last >= tiny.first ? measureSpanError(chain, bevel, tiny.first, tiny.last, tolerance) : 0, carrier: null };
+  const nextNodes = nodes.slice();
+  for (const k of [i, (i + 1) % n]) nextNodes[k] = { ...nodes[k]!, smooth: false, tangentIn: null, tangentOut: null, pinned: true };
+  return { nodes: nextNodes, spans: nextSpans };
+}
+
+/** The unsigned angle between two directions, radians. */
+function turnBetween(u: Vec, v: Vec): number {
+  return Math.abs(Math.atan2(u.x * v.y - u.y * v.x, u.x * v.x + u.y * v.y));
 }
 
 function distanceToSegment(p: Point, segment: CubicSegment): number {
@@ -160,15 +200,16 @@ function distanceToSegment(p: Point, segment: CubicSegment): number {
   return Math.hypot(nearest.point.x - p.x, nearest.point.y - p.y);
 }
 
-/** Every chain point of [first, last] within `tolerance` of the polyline a → corner → b. */
-function tipWithin(chain: BoundaryChain, a: Point, corner: Point, b: Point, first: number, last: number, tolerance: number): boolean {
-  const ax = a.x - chain.origin.x, ay = a.y - chain.origin.y;
-  const cx = corner.x - chain.origin.x, cy = corner.y - chain.origin.y;
-  const bx = b.x - chain.origin.x, by = b.y - chain.origin.y;
+/** Every chain point of [first, last] within `tolerance` of the polyline through `vertices`. */
+function tipWithin(chain: BoundaryChain, vertices: readonly Point[], first: number, last: number, tolerance: number): boolean {
+  const xs = vertices.map((v) => v.x - chain.origin.x);
+  const ys = vertices.map((v) => v.y - chain.origin.y);
   for (let k = first; k <= last; k++) {
     const i = ((k % chain.count) + chain.count) % chain.count;
     const px = chain.xs[i]!, py = chain.ys[i]!;
-    if (Math.min(toSegment(px, py, ax, ay, cx, cy), toSegment(px, py, cx, cy, bx, by)) > tolerance) return false;
+    let nearest = Infinity;
+    for (let v = 0; v + 1 < vertices.length; v++) nearest = Math.min(nearest, toSegment(px, py, xs[v]!, ys[v]!, xs[v + 1]!, ys[v + 1]!));
+    if (nearest > tolerance) return false;
   }
   return true;
 }

@@ -202,3 +202,18 @@ describeWithFont('the blunted apex of Cantarell 4 on the rough scan', CANTARELL,
     expect(glyph!.recalledCorners).toBe(glyph!.fontCorners);
   });
 });
+
+describeWithFont('the narrow stroke ends of Linux Libertine M and W on the rough scan', LIBERTINE, () => {
+  let glyphs: readonly GlyphMeasurement[] = [];
+  beforeAll(() => {
+    const font = loadFont(LIBERTINE.path);
+    glyphs = [...'MW'].map((c) => measureGlyph('Linux Libertine Regular', font.charToGlyph(c).path.commands, c, 'rough 1 px/unit', { tolerance: DEFAULT_TOLERANCE_PER_PIXEL }, 5000 + ALL_GLYPHS.indexOf(c)));
+  }, 60_000);
+
+  it('end in flats between corners, with no extremum inside a segment', () => {
+    // Reference: the font's own M and W, whose thin strokes end in flats 2–3 units wide
+    // where they meet the serifs. Fitted as curves 2–3 units long, their tops stuck out
+    // 0.75 and 1.15 units between two points (the extremum rule allows 0.5).
+    for (const g of glyphs) expect(g.extremaInside, g.character).toBe(0);
+  });
+});

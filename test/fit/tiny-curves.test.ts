@@ -88,9 +88,25 @@ describe('blunted corners a few units across', () => {
     expect(cornerTinyCurves(chain, contour, 1.5, 1, 1, [middle])).toBe(contour);
   });
 
-  it('do not sharpen an acute apex into a spike beyond the tolerance', () => {
-    // At a 160° turn the sides meet r·(1/sin(10°) − 1) ≈ 4.8 r beyond the round's middle.
+  it('end a narrow stroke in its flat chord between two corners, not in a spike beyond the tolerance', () => {
+    // At a 160° turn the sides meet r·(1/sin(10°) − 1) ≈ 4.8 r beyond the round's middle;
+    // the chord between the round's ends holds it within r·(1 − cos(80°)) ≈ 0.83 r.
     const { chain, contour } = bluntedTriangle(1.5, 160);
+    const result = cornerTinyCurves(chain, contour, 1.5, 1, 1);
+    expect(result.nodes).toHaveLength(4);
+    const flat = result.spans[1]!.segment;
+    expect(flat.kind).toBe('line');
+    const round = contour.spans[1]!.segment as CubicSegment;
+    expect(flat.p0).toEqual(round.p0);
+    expect(flat.kind === 'line' ? flat.p1 : undefined).toEqual(round.p3);
+    expect(result.nodes[1]!.smooth).toBe(false);
+    expect(result.nodes[2]!.smooth).toBe(false);
+    expect(result.spans[1]!.maxError).toBeLessThanOrEqual(1.5);
+  });
+
+  it('keep a round stroke end that neither a corner nor a flat holds within the tolerance', () => {
+    // A near-semicircular end 5.8 units across: its middle is 2.8 units beyond the chord.
+    const { chain, contour } = bluntedTriangle(2.9, 176);
     expect(cornerTinyCurves(chain, contour, 1.5, 1, 1)).toBe(contour);
   });
 });
