@@ -3,3 +3,4 @@ export { ASCENDER_LETTERS, CAP_HEIGHT_LETTERS, DESCENDER_LETTERS, DOTTED_LETTERS
 export { DEFAULT_CAP_HEIGHT_UNITS, measureSheetMetrics, unitsPerPixel, type MeasuredHeight, type SheetMetrics } from './measure-metrics.ts';
 export { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, inkExtent, spaceGlyph, type SpacedGlyph } from './spacing.ts';
 export { DEFAULT_UNITS_PER_EM } from './units-per-em.ts';
+export { SET_BY_HAND, withGuideHeights, type GuideHeights } from './guide-heights.ts';
