@@ -43,7 +43,7 @@ export { DEFAULT_SAUVOLA_WINDOW_MM, traceScan, type TraceScanOptions, type Trace
 export { inReadingOrder } from './reading-order.ts';
 export { SheetEditError } from './sheet-edit-error.ts';
 export { mergeLetters, unionOfBoxes } from './merge-letters.ts';
-export { letterPieces, pieceGaps, pieceSide, splitLetterByPieces, type LetterPiece, type PieceGap } from './split-letter.ts';
+export { letterPieces, pieceGaps, pieceSide, piecesCrossedAt, splitLetterByPieces, type LetterPiece, type PieceGap } from './split-letter.ts';
 export { cutLetterInk, letterInkPixels, type CutInk, type InkSource } from './cut-ink.ts';
 export {
   NO_GUIDES_SET,

@@ -68,6 +68,15 @@ export function pieceGaps(pieces: readonly LetterPiece[]): PieceGap[] {
   return gaps;
 }
 
+/**
+ * The pieces a vertical line at x = `at` runs through the ink of. A piece's outer
+ * contour is one closed curve, so the line crosses it exactly when `at` lies strictly
+ * inside the contour's horizontal extent: the box test is exact.
+ */
+export function piecesCrossedAt(pieces: readonly LetterPiece[], at: number): LetterPiece[] {
+  return pieces.filter((piece) => piece.box.x < at && at < piece.box.x + piece.box.width);
+}
+
 /** Which side of a vertical line at x = `at` a piece goes to: left when its box centre is left of the line. */
 export function pieceSide(piece: LetterPiece, at: number): 'left' | 'right' {
   return piece.box.x + piece.box.width / 2 < at ? 'left' : 'right';

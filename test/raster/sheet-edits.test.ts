@@ -10,6 +10,7 @@ import {
   applySheetEdits,
   letterPieces,
   pieceGaps,
+  piecesCrossedAt,
   SheetEditError,
   signedArea,
   traceScan,
@@ -97,6 +98,14 @@ describe('merging letters', () => {
   });
 });
 
+describe('the gaps between pieces', () => {
+  it('are the spans a vertical line can cross without touching ink, left to right', () => {
+    const scan = traceScan({ raster: painted(300, 120, [[20, 20, 20, 60], [60, 20, 20, 60], [70, 90, 30, 10], [130, 20, 20, 60]]) });
+    const all = { index: 0, box: { x: 20, y: 20, width: 130, height: 80 }, contours: scan.contours.map((_, i) => i), row: 0, character: null };
+    expect(pieceGaps(letterPieces(scan.contours, all))).toEqual([{ from: 40, to: 60 }, { from: 100, to: 130 }]);
+  });
+});
+
 describe('splitting a letter by its pieces', () => {
   // A stem and, up and to its right, a mark overlapping its top: the segmentation takes the mark as the stem's accent.
   const scan = traceScan({ raster: painted(200, 200, [[40, 60, 20, 100], [56, 30, 20, 20]]) });
@@ -107,6 +116,9 @@ describe('splitting a letter by its pieces', () => {
     const pieces = letterPieces(before.contours, before.sheet.letters[0]!);
     expect(pieces).toHaveLength(2);
     expect(pieceGaps(pieces)).toEqual([]); // they overlap in x: no clean gap, the centres decide
+    expect(piecesCrossedAt(pieces, 58).map((p) => p.box.x)).toEqual([40, 56]);
+    expect(piecesCrossedAt(pieces, 70).map((p) => p.box.x)).toEqual([56]);
+    expect(piecesCrossedAt(pieces, 76)).toEqual([]); // the right edge itself is not inside
     const split = edit(before, { kind: 'split', letter: 0, x: 60 });
     expect(split.sheet.letters.map((l) => [l.box.x, l.box.width, l.character])).toEqual([[40, 20, 'l'], [56, 20, null]]);
     expect(split.sheet.letters.map((l) => l.row)).toEqual([0, 0]);

@@ -4,8 +4,10 @@
 // overrides — as a valibot schema, so a file that was hand-edited or half-synced is
 // refused with the field that is wrong. Format 1 files are read through
 // migrate-format-1.ts. Format 2 changed: a glyph's single `character` became the
-// ordered list `unicodes`, and an embedded scan carries its SHA-256.
+// ordered list `unicodes`, and an embedded scan carries its SHA-256. Later, within
+// format 2, a scan gained the optional `sheetEdits` (sheet-edits-schema.ts).
 import * as v from 'valibot';
+import { sheetEditsSchema } from './sheet-edits-schema.ts';
 
 /** The `format` field's value: tells a Stemline project from any other JSON. */
 export const PROJECT_FORMAT_NAME = 'stemline-project';
@@ -88,6 +90,8 @@ const scanSchema = v.strictObject({
   embedded: v.optional(embeddedScanSchema),
   dpi: v.optional(v.pipe(v.number(), v.minValue(1), v.maxValue(100000))),
   characters: v.optional(v.string()),
+  /** The user's corrections of the scan's letters and guides, in order; when present they include the assignments of characters. */
+  sheetEdits: v.optional(sheetEditsSchema),
   threshold: v.optional(v.union([v.literal('otsu'), v.literal('local'), v.pipe(v.number(), v.integer(), v.minValue(0), v.maxValue(255))])),
   invert: v.optional(v.boolean()),
 });
