@@ -57,6 +57,22 @@ describe('the project the window saves', () => {
     expect(project.glyphs[1]).toEqual(carried[0]);
   });
 
+  it('saves the corrections of the sheet once there is more than an assignment, and gives a renumbered letter no other letter\'s settings', () => {
+    const base: ProjectData = {
+      ...newProject('Harbour Signs'),
+      scans: [{ id: 'capitals', path: 'capitals.png', characters: 'ABO' }],
+      // Saved for letter #3 when it was an "O"; after a merge, letter #3 is the "I".
+      glyphs: [{ unicodes: ['004F'], name: 'O.round', advanceWidth: 700, outline: { contours: [] }, source: { scan: 'capitals', letter: 2 }, fitOverrides: { forcedCorners: [4], forcedSmooth: [] } }],
+    };
+    const assignedOnly = projectContent({ scan: { fileName: 'capitals.png', copy, characters: 'ABI', edits: [{ kind: 'assign', characters: 'ABI' }] }, scanFromBase: true, editing: editing(300), carried: [], base });
+    expect(assignedOnly.scans[0]).not.toHaveProperty('sheetEdits');
+    const edits = [{ kind: 'merge', letters: [0, 1] }, { kind: 'assign', characters: 'ABI' }] as const;
+    const corrected = projectContent({ scan: { fileName: 'capitals.png', copy, characters: 'ABI', edits }, scanFromBase: true, editing: editing(300), carried: [], base });
+    expect(v.safeParse(projectSchema, corrected).success).toBe(true);
+    expect(corrected.scans[0]?.sheetEdits).toEqual(edits);
+    expect(corrected.glyphs[0]).toEqual({ unicodes: ['0049'], advanceWidth: 300, outline: { contours: [[[50, 0, 'on'], [250, 0, 'on'], [250, 700, 'on'], [50, 700, 'on']]] }, source: { scan: 'capitals', letter: 2 } });
+  });
+
   it('holds no glyphs and no scan before anything is opened, and is still a valid file', () => {
     const project = projectContent({ scan: null, scanFromBase: false, editing: null, carried: [], base: null });
     expect(v.safeParse(projectSchema, project).success).toBe(true);

@@ -60,12 +60,16 @@ export function projectContent(content: WindowContent): ProjectData {
       ...(corrected ? { sheetEdits: edits.map(savedSheetEdit) } : {}),
     });
   }
-  const savedGlyph = (letterIndex: number) =>
-    baseScan ? content.base?.glyphs.find((g) => g.source?.scan === scanId && g.source.letter === letterIndex) : undefined;
+  // A saved glyph's own settings (name, fitting overrides) carry over to the letter it was saved for: the same
+  // letter of the scan with the same character. Corrections can renumber letters, so the number alone is not enough.
+  const savedGlyph = (letterIndex: number, unicodes: readonly number[]) =>
+    baseScan
+      ? content.base?.glyphs.find((g) => g.source?.scan === scanId && g.source.letter === letterIndex && g.unicodes[0] === (unicodes[0] === undefined ? undefined : unicodeHexOf(String.fromCodePoint(unicodes[0]))))
+      : undefined;
   const letterGlyphs = content.editing
     ? content.editing.letters.flatMap((letter) => {
         const glyph = content.editing!.document.glyphs[letter.id];
-        return glyph ? [glyphOfLetter(glyph, letter, scanId, savedGlyph(letter.letter.index))] : [];
+        return glyph ? [glyphOfLetter(glyph, letter, scanId, savedGlyph(letter.letter.index, glyph.unicodes))] : [];
       })
     : [];
   const metrics = content.editing?.document.metrics;
