@@ -154,6 +154,7 @@ test.describe('correcting the letters and guides of a sheet', () => {
     await clickBox(page, 4);
     await page.getByLabel('Character of letter #5').fill('k');
     await page.getByRole('button', { name: 'Retype' }).click();
+    await expect(boxes.nth(4)).toHaveAttribute('data-character', 'k');
     expect(await characters(page)).toEqual(['H', 'x', 'i', 'l', 'k', 'd', "'"]);
     // Undo and redo the retype from the keyboard.
     await page.getByTestId('sheet').click({ position: { x: 5, y: 5 } });
