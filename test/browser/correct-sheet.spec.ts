@@ -82,7 +82,7 @@ async function clickBox(page: Page, index: number, adding = false): Promise<void
 test.describe('correcting the letters and guides of a sheet', () => {
   test.skip(!chromium.available, chromium.message);
 
-  test('opens a scan dropped onto the project screen', async ({ page }) => {
+  test('opens a scan dropped onto the project screen, and typing over the boxes retypes them one by one', async ({ page }) => {
     await page.goto('/');
     const bytes = [...(await sheetPng())];
     const transfer = await page.evaluateHandle((data) => {
@@ -93,6 +93,16 @@ test.describe('correcting the letters and guides of a sheet', () => {
     await page.getByTestId('project-overview').dispatchEvent('dragover', { dataTransfer: transfer });
     await page.getByTestId('project-overview').dispatchEvent('drop', { dataTransfer: transfer });
     await expect(page.getByTestId('letter-count')).toHaveText('6 letters in 1 row');
+
+    // Typing over the selected box retypes it and moves on: three keys, three letters, in order.
+    await clickBox(page, 0);
+    await page.keyboard.type('Hxi');
+    const boxes = page.getByTestId('letter-box');
+    await expect(boxes.nth(2)).toHaveAttribute('data-character', 'i');
+    expect(await characters(page)).toEqual(['H', 'x', 'i', '', '', '']);
+    await expect(boxes.nth(3)).toHaveAttribute('data-selected', 'true');
+    await page.keyboard.press('ArrowLeft');
+    await expect(boxes.nth(2)).toHaveAttribute('data-selected', 'true');
   });
 
   test('merges, cuts, splits, retypes and moves the x-height; the fit uses the guide, and the project keeps it all', async ({ page }) => {

@@ -51,6 +51,8 @@ export class ScanSession {
   /** Corrections undone, the next to redo last. */
   undone = $state.raw<readonly SheetEdit[]>([]);
   private client: TraceClient | null = null;
+  /** The correction running or last run: the next one waits for it. */
+  private turn: Promise<unknown> = Promise.resolve();
 
   /** Decodes and traces `file`; on failure keeps the previous sheet and shows why. True when it opened. */
   async open(file: File): Promise<boolean> {
@@ -92,34 +94,51 @@ export class ScanSession {
     return true;
   }
 
-  /** Makes one correction of the sheet (clearing redo). False when it cannot be made: `problem` says why and the sheet stays as it was. */
-  async correct(edit: SheetEdit): Promise<boolean> {
-    if (!(await this.show([...this.edits, edit]))) return false;
-    this.undone = [];
-    return true;
+  /**
+   * Makes one correction of the sheet (clearing redo). Corrections run one after
+   * another in the order asked for, so letters typed quickly all land. False when it
+   * cannot be made: `problem` says why and the sheet stays as it was.
+   */
+  correct(edit: SheetEdit): Promise<boolean> {
+    return this.inTurn(async () => {
+      if (!(await this.show([...this.edits, edit]))) return false;
+      this.undone = [];
+      return true;
+    });
   }
 
   /** Undoes the last correction. */
-  async undo(): Promise<void> {
-    const last = this.edits[this.edits.length - 1];
-    if (last === undefined) return;
-    if (await this.show(this.edits.slice(0, -1))) this.undone = [...this.undone, last];
+  undo(): Promise<void> {
+    return this.inTurn(async () => {
+      const last = this.edits[this.edits.length - 1];
+      if (last !== undefined && (await this.show(this.edits.slice(0, -1)))) this.undone = [...this.undone, last];
+    });
   }
 
   /** Redoes the last correction undone. */
-  async redo(): Promise<void> {
-    const next = this.undone[this.undone.length - 1];
-    if (next === undefined) return;
-    if (await this.show([...this.edits, next])) this.undone = this.undone.slice(0, -1);
+  redo(): Promise<void> {
+    return this.inTurn(async () => {
+      const next = this.undone[this.undone.length - 1];
+      if (next !== undefined && (await this.show([...this.edits, next]))) this.undone = this.undone.slice(0, -1);
+    });
   }
 
   /** Puts back the corrections of a reopened project, in order. True when every one could be made. */
-  async restoreEdits(edits: readonly SheetEdit[]): Promise<boolean> {
-    if (!(await this.show(edits))) return false;
-    const lastAssign = [...edits].reverse().find((e) => e.kind === 'assign');
-    if (lastAssign?.kind === 'assign') this.characters = lastAssign.characters;
-    this.undone = [];
-    return true;
+  restoreEdits(edits: readonly SheetEdit[]): Promise<boolean> {
+    return this.inTurn(async () => {
+      if (!(await this.show(edits))) return false;
+      const lastAssign = [...edits].reverse().find((e) => e.kind === 'assign');
+      if (lastAssign?.kind === 'assign') this.characters = lastAssign.characters;
+      this.undone = [];
+      return true;
+    });
+  }
+
+  /** Runs `task` after every correction asked for before it has finished. */
+  private inTurn<T>(task: () => Promise<T>): Promise<T> {
+    const run = this.turn.then(task, task);
+    this.turn = run.catch(() => undefined);
+    return run;
   }
 
   /** Whether a correction, undo or redo can start now. */
