@@ -32,8 +32,8 @@ export type SheetEdit =
   | { readonly kind: 'cut'; readonly letter: number; readonly x: number }
   /** A row's baseline set to y (pixel frame, y down). */
   | { readonly kind: 'baseline'; readonly row: number; readonly y: number }
-  /** The sheet's cap height or x-height set, in pixels above each row's baseline. */
-  | { readonly kind: 'height'; readonly guide: HeightGuide; readonly pixels: number };
+  /** The sheet's cap height or x-height set, in pixels above each row's baseline; null goes back to the measured height. */
+  | { readonly kind: 'height'; readonly guide: HeightGuide; readonly pixels: number | null };
 
 /** The guides the user has set by hand (the others are measured). */
 export interface SheetGuides {
@@ -145,6 +145,7 @@ export function applySheetEdit(state: CorrectedSheet, edit: SheetEdit, source?: 
       return { ...state, sheet: { ...sheet, rows: sheet.rows.map((r) => (r === row ? { ...r, baseline: y } : r)) }, guides: { ...state.guides, baselinesSet } };
     }
     case 'height': {
+      if (edit.pixels === null) return { ...state, guides: edit.guide === 'cap-height' ? { ...state.guides, capHeightPixels: null } : { ...state.guides, xHeightPixels: null } };
       const pixels = finite(edit.pixels, edit.guide === 'cap-height' ? 'cap height' : 'x-height');
       if (!(pixels > 0)) throw new SheetEditError(`The ${edit.guide === 'cap-height' ? 'cap height' : 'x-height'} must lie above the baseline, not ${Math.round(-pixels)} px below it; drag the line above the baseline.`);
       return { ...state, guides: edit.guide === 'cap-height' ? { ...state.guides, capHeightPixels: pixels } : { ...state.guides, xHeightPixels: pixels } };

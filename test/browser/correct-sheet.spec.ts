@@ -221,6 +221,10 @@ test.describe('correcting the letters and guides of a sheet', () => {
     await expect(page.getByTestId('x-height-source')).toHaveText('set by hand');
     expect(Number(await page.getByTestId('x-height-pixels').inputValue())).toBe(xPx);
     await expect(page.getByTestId('unsaved-marker')).toHaveCount(0);
+    // And back to the measured x-height, as one more correction.
+    await page.getByRole('button', { name: 'Use the measured x-height' }).click();
+    await expect(page.getByTestId('x-height-source')).toHaveText('measured on x');
+    await expect(page.getByTestId('unsaved-marker')).toBeVisible();
     rmSync(file, { force: true });
   });
 });

@@ -18,6 +18,7 @@ const EDITS: SheetEdit[] = [
   { kind: 'retype', letter: 4, character: 'k' },
   { kind: 'baseline', row: 0, y: 160.5 },
   { kind: 'height', guide: 'x-height', pixels: 70 },
+  { kind: 'height', guide: 'cap-height', pixels: null },
 ];
 
 function project(edits?: readonly SheetEdit[]): ProjectData {

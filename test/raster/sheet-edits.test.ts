@@ -249,6 +249,7 @@ describe('retyping, assigning and guides', () => {
     expect(set.sheet.rows[0]!.baseline).toBe(84.5);
     expect(set.guides).toEqual({ baselinesSet: [0], capHeightPixels: 66, xHeightPixels: 44 });
     expect(() => edit(set, { kind: 'height', guide: 'x-height', pixels: -3 })).toThrow(/must lie above the baseline/);
+    expect(edit(set, { kind: 'height', guide: 'x-height', pixels: null }).guides).toEqual({ baselinesSet: [0], capHeightPixels: 66, xHeightPixels: null });
     expect(() => edit(set, { kind: 'baseline', row: 4, y: 10 })).toThrow(/no row 5/);
   });
 

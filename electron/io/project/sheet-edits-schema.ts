@@ -27,7 +27,7 @@ export const sheetEditSchema = v.variant('kind', [
   v.strictObject({ kind: v.literal('split'), letter: letterIndex, x: pixel }),
   v.strictObject({ kind: v.literal('cut'), letter: letterIndex, x: pixel }),
   v.strictObject({ kind: v.literal('baseline'), row: v.pipe(v.number(), v.integer('a row number counted from 0'), v.minValue(0)), y: pixel }),
-  v.strictObject({ kind: v.literal('height'), guide: v.picklist(['cap-height', 'x-height']), pixels: v.pipe(pixel, v.gtValue(0, 'a height above the baseline')) }),
+  v.strictObject({ kind: v.literal('height'), guide: v.picklist(['cap-height', 'x-height']), pixels: v.nullable(v.pipe(pixel, v.gtValue(0, 'a height above the baseline'))) }),
 ], 'a sheet correction: "kind" one of assign, retype, merge, split, cut, baseline, height');
 
 export const sheetEditsSchema = v.array(sheetEditSchema);
