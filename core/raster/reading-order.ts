@@ -8,14 +8,13 @@
 import type { SheetLetter } from './segment-sheet.ts';
 
 /**
- * `letters` sorted by row, then by the left edge of their box (ties: by the top edge,
- * then by their first contour, so the order never depends on the input order), with
- * `index` renumbered from 0. New objects only where the index changes; the input is
- * not modified.
+ * `letters` sorted by row, then by the left edge of their box, with `index`
+ * renumbered from 0. Letters with the same row and left edge (a dot found apart from
+ * its stem) keep the order they have in `letters`, so a correction never swaps the
+ * numbers of letters it did not touch. New objects only where the index changes; the
+ * input is not modified.
  */
 export function inReadingOrder(letters: readonly SheetLetter[]): SheetLetter[] {
-  const sorted = [...letters].sort(
-    (a, b) => a.row - b.row || a.box.x - b.box.x || a.box.y - b.box.y || (a.contours[0] ?? 0) - (b.contours[0] ?? 0),
-  );
+  const sorted = [...letters].sort((a, b) => a.row - b.row || a.box.x - b.box.x);
   return sorted.map((letter, index) => (letter.index === index ? letter : { ...letter, index }));
 }

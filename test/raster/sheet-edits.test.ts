@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import {
   applySheetEdit,
   applySheetEdits,
+  inReadingOrder,
   letterPieces,
   pieceGaps,
   piecesCrossedAt,
@@ -95,6 +96,14 @@ describe('merging letters', () => {
   it('refuses to merge one letter, saying to select another', () => {
     expect(() => edit(start(scan), { kind: 'merge', letters: [0, 0] })).toThrow(/at least two letters: select another box/);
     expect(() => edit(start(scan), { kind: 'merge', letters: [0, 7] })).toThrow(/no letter #8/);
+  });
+});
+
+describe('reading order after a correction', () => {
+  it('goes row by row, left to right, and keeps the order of letters that start at the same x', () => {
+    const letter = (row: number, x: number, y: number, tag: string) => ({ index: 9, box: { x, y, width: 10, height: 10 }, contours: [], row, character: tag });
+    const ordered = inReadingOrder([letter(1, 5, 0, 'd'), letter(0, 30, 0, 'c'), letter(0, 10, 50, 'a'), letter(0, 10, 0, 'b')]);
+    expect(ordered.map((l) => [l.index, l.character])).toEqual([[0, 'a'], [1, 'b'], [2, 'c'], [3, 'd']]);
   });
 });
 
