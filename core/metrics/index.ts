@@ -4,3 +4,4 @@ export { DEFAULT_CAP_HEIGHT_UNITS, measureSheetMetrics, unitsPerPixel, type Meas
 export { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, inkExtent, spaceGlyph, type SpacedGlyph } from './spacing.ts';
 export { DEFAULT_UNITS_PER_EM } from './units-per-em.ts';
 export { DEFAULT_LINE_SPACING_EM, defaultLineGap } from './line-gap.ts';
+export { SET_BY_HAND, withGuideHeights, type GuideHeights } from './guide-heights.ts';

@@ -9,7 +9,7 @@
  */
 import type { Point } from '../geometry/vector.ts';
 import { traceScan, type Box, type ScanImage, type TraceScanOptions, type TraceScanResult, type TraceStage } from '../raster/index.ts';
-import { DEFAULT_CAP_HEIGHT_UNITS, measureSheetMetrics, unitsPerPixel as scaleFromMetrics, type SheetMetrics } from '../metrics/index.ts';
+import { DEFAULT_CAP_HEIGHT_UNITS, measureSheetMetrics, unitsPerPixel as scaleFromMetrics, withGuideHeights, type GuideHeights, type SheetMetrics } from '../metrics/index.ts';
 import { DEFAULT_TOLERANCE, fitGlyph, type FitOptions, type GlyphChain, type GlyphFitReport } from '../fit/index.ts';
 import type { GlyphOutline } from '../outline/index.ts';
 
@@ -51,6 +51,12 @@ export interface TraceLettersOptions {
   readonly unitsPerPixel?: number;
   /** Cap height in font units the drawn cap height maps to. Default 700. */
   readonly capHeightUnits?: number;
+  /**
+   * Cap height and x-height the user set on the sheet, in pixels, over the measured
+   * ones: the scale and the reported metrics follow them. (Baselines the user set are
+   * in the sheet's rows.)
+   */
+  readonly guides?: GuideHeights;
   /** Progress over the whole pipeline (0–1) with the current step. */
   readonly onProgress?: (fraction: number, stage: TraceStage | 'fitting') => void;
 }
@@ -100,7 +106,8 @@ export function traceLetters(image: ScanImage, options: TraceLettersOptions = {}
  */
 export function fitTracedSheet(scan: TraceScanResult, options: Omit<TraceLettersOptions, 'scan'> = {}): TracedLetters {
   const report = options.onProgress;
-  const metrics = measureSheetMetrics(scan.sheet, scan.contours);
+  const measured = measureSheetMetrics(scan.sheet, scan.contours);
+  const metrics = options.guides ? withGuideHeights(measured, options.guides) : measured;
   const scale = options.unitsPerPixel ?? scaleFromMetrics(metrics, options.capHeightUnits ?? DEFAULT_CAP_HEIGHT_UNITS);
   if (!(scale > 0) || !Number.isFinite(scale)) throw new RangeError(`The scale must be a positive number of font units per pixel, not ${String(scale)}.`);
   const tolerance = Math.max(options.fit?.tolerance ?? DEFAULT_TOLERANCE, MIN_TOLERANCE_PIXELS * scale);

@@ -40,3 +40,20 @@ export { nestContours } from './nesting.ts';
 export { PIXEL_APERTURE_SIGMA_PX, estimateEdgeBlur } from './edge-blur.ts';
 export { segmentSheet, splitCharacters, type SegmentSheetOptions, type SheetLetter, type SheetRow, type SheetSegmentation } from './segment-sheet.ts';
 export { DEFAULT_SAUVOLA_WINDOW_MM, traceScan, type TraceScanOptions, type TraceScanResult, type TraceStage } from './trace-scan.ts';
+export { inReadingOrder } from './reading-order.ts';
+export { SheetEditError } from './sheet-edit-error.ts';
+export { mergeLetters, unionOfBoxes } from './merge-letters.ts';
+export { letterPieces, pieceGaps, pieceSide, piecesCrossedAt, splitLetterByPieces, type LetterPiece, type PieceGap } from './split-letter.ts';
+export { cutLetterInk, letterInkPixels, type CutInk, type InkSource } from './cut-ink.ts';
+export {
+  NO_GUIDES_SET,
+  applySheetEdit,
+  applySheetEdits,
+  assignInReadingOrder,
+  hasSeveralPieces,
+  uncorrectedSheet,
+  type CorrectedSheet,
+  type HeightGuide,
+  type SheetEdit,
+  type SheetGuides,
+} from './sheet-edits.ts';

@@ -15,7 +15,7 @@ import { assertGreyRaster } from './raster-validation.ts';
 import { segmentSheet, type SheetSegmentation } from './segment-sheet.ts';
 import type { PaperAndInkLevels } from './threshold-otsu.ts';
 import { traceBoundaries, type BoundaryMethod } from './trace-boundaries.ts';
-import type { Contour, InkMask, ScanImage } from './types.ts';
+import type { Contour, GreyRaster, InkMask, ScanImage } from './types.ts';
 
 /** Steps reported to onProgress, in order. */
 export type TraceStage = 'binarize' | 'cleanup' | 'boundaries' | 'nesting' | 'segmentation' | 'done';
@@ -57,6 +57,8 @@ export interface TraceScanResult {
    * with too few clean edges. The fitter takes it as `scanBlurPx`.
    */
   readonly edgeBlurPx: number | null;
+  /** The greys the boundaries were placed on (inverted when `invert` was set): re-tracing a cut letter uses them. */
+  readonly grey: GreyRaster;
   /** The cleaned ink mask the contours follow. */
   readonly mask: InkMask;
   readonly contours: Contour[];
@@ -147,6 +149,7 @@ export function traceScan(scan: ScanImage, options: TraceScanOptions = {}): Trac
     resolution,
     boundary: traced.method,
     edgeBlurPx,
+    grey: binarized.grey,
     mask: cleaned.mask,
     contours,
     sheet,

@@ -17,7 +17,7 @@ const copy = embedScan(new Uint8Array([1, 2, 3, 4]));
 const square = { contours: [{ points: [onCurve(50, 0), onCurve(250, 0), onCurve(250, 700), onCurve(50, 700)] }] };
 
 function fittedLetter(index: number, character: string): FittedLetter {
-  return { index, character, box: { x: 10, y: 10, width: 20, height: 70 }, frame: { originX: 10, baselineY: 80, unitsPerPixel: 10 }, outline: square, warnings: [], maxDeviation: 0.5, problem: null };
+  return { index, character, contours: [index], box: { x: 10, y: 10, width: 20, height: 70 }, frame: { originX: 10, baselineY: 80, unitsPerPixel: 10 }, outline: square, warnings: [], maxDeviation: 0.5, problem: null };
 }
 
 function editing(advanceWidth: number) {
@@ -55,6 +55,22 @@ describe('the project the window saves', () => {
     expect(project.scans).toEqual([{ id: 'capitals', path: 'scans/capitals.png', dpi: 600, threshold: 'local', characters: 'ABI', embedded: copy }]);
     expect(project.glyphs[0]).toMatchObject({ name: 'I.alt', advanceWidth: 310, source: { scan: 'capitals', letter: 2 }, fitOverrides: { forcedCorners: [1], forcedSmooth: [] } });
     expect(project.glyphs[1]).toEqual(carried[0]);
+  });
+
+  it('saves the corrections of the sheet once there is more than an assignment, and gives a renumbered letter no other letter\'s settings', () => {
+    const base: ProjectData = {
+      ...newProject('Harbour Signs'),
+      scans: [{ id: 'capitals', path: 'capitals.png', characters: 'ABO' }],
+      // Saved for letter #3 when it was an "O"; after a merge, letter #3 is the "I".
+      glyphs: [{ unicodes: ['004F'], name: 'O.round', advanceWidth: 700, outline: { contours: [] }, source: { scan: 'capitals', letter: 2 }, fitOverrides: { forcedCorners: [4], forcedSmooth: [] } }],
+    };
+    const assignedOnly = projectContent({ scan: { fileName: 'capitals.png', copy, characters: 'ABI', edits: [{ kind: 'assign', characters: 'ABI' }] }, scanFromBase: true, editing: editing(300), carried: [], base });
+    expect(assignedOnly.scans[0]).not.toHaveProperty('sheetEdits');
+    const edits = [{ kind: 'merge', letters: [0, 1] }, { kind: 'assign', characters: 'ABI' }] as const;
+    const corrected = projectContent({ scan: { fileName: 'capitals.png', copy, characters: 'ABI', edits }, scanFromBase: true, editing: editing(300), carried: [], base });
+    expect(v.safeParse(projectSchema, corrected).success).toBe(true);
+    expect(corrected.scans[0]?.sheetEdits).toEqual(edits);
+    expect(corrected.glyphs[0]).toEqual({ unicodes: ['0049'], advanceWidth: 300, outline: { contours: [[[50, 0, 'on'], [250, 0, 'on'], [250, 700, 'on'], [50, 700, 'on']]] }, source: { scan: 'capitals', letter: 2 } });
   });
 
   it('holds no glyphs and no scan before anything is opened, and is still a valid file', () => {

@@ -7,9 +7,11 @@
 // ordered list `unicodes`, and an embedded scan carries its SHA-256. Later, within
 // format 2, the font gained the optional `metricsSetByUser`: which vertical metrics
 // the designer typed (the others are measured from the drawing). A file without it
-// opens as before (renderer/src/project/saved-metrics.ts says how it is read).
+// opens as before (renderer/src/project/saved-metrics.ts says how it is read). And a
+// scan gained the optional `sheetEdits` (sheet-edits-schema.ts).
 import * as v from 'valibot';
 import type { MetricName } from '../../../core/document/index.ts';
+import { sheetEditsSchema } from './sheet-edits-schema.ts';
 
 /** The `format` field's value: tells a Stemline project from any other JSON. */
 export const PROJECT_FORMAT_NAME = 'stemline-project';
@@ -95,6 +97,8 @@ const scanSchema = v.strictObject({
   embedded: v.optional(embeddedScanSchema),
   dpi: v.optional(v.pipe(v.number(), v.minValue(1), v.maxValue(100000))),
   characters: v.optional(v.string()),
+  /** The user's corrections of the scan's letters and guides, in order; when present they include the assignments of characters. */
+  sheetEdits: v.optional(sheetEditsSchema),
   threshold: v.optional(v.union([v.literal('otsu'), v.literal('local'), v.pipe(v.number(), v.integer(), v.minValue(0), v.maxValue(255))])),
   invert: v.optional(v.boolean()),
 });

@@ -9,6 +9,8 @@ import type { FontContent } from '../../../electron/api-contract.ts';
 import { embeddedCopyOf, fileFromCopy } from './scan-copy.ts';
 import { projectContent } from './project-content.ts';
 import { restoredLetters } from './restored-letters.ts';
+import { keptOutlines } from './kept-outlines.ts';
+import { fontMetricsOf, letterDocument } from '../editor/letter-document.ts';
 
 /** The last part of a project's relative scan path ("scans/capitals.png" → "capitals.png"). */
 function baseName(path: string): string {
@@ -27,10 +29,18 @@ export class Workbench {
   /** The scan file restored from `base`, to tell it from a scan opened since. */
   private baseScanFile: File | null = null;
 
-  /** Fits the assigned letters in the worker and starts editing them. False when fitting failed (the session says why). */
+  /**
+   * Fits the assigned letters in the worker and starts editing them. Letters already
+   * being edited whose ink and place on the scan the sheet's corrections left alone
+   * keep their edited outlines (kept-outlines.ts). False when fitting failed (the
+   * session says why).
+   */
   async fitLetters(): Promise<boolean> {
+    const previous = this.editing;
     if (!(await this.scan.fit()) || !this.scan.fitted) return false;
-    this.editing = new LetterEditing(this.scan.fitted);
+    const fitted = this.scan.fitted;
+    const fresh = letterDocument(fitted);
+    this.editing = new LetterEditing(fitted, previous ? keptOutlines({ document: previous.state.document, letters: previous.letters }, fontMetricsOf(previous.sheet), fresh) : fresh);
     return true;
   }
 
@@ -41,7 +51,7 @@ export class Workbench {
    */
   get stamp(): readonly unknown[] {
     const document = this.editing?.state.document;
-    return [this.scan, this.scan.file, this.scan.characters, this.editing, document?.glyphs, document?.metrics, this.carried, this.base];
+    return [this.scan, this.scan.file, this.scan.characters, this.scan.edits, this.editing, document?.glyphs, document?.metrics, this.carried, this.base];
   }
 
   /** The project file's contents for the current state. */
@@ -49,7 +59,7 @@ export class Workbench {
     const file = this.scan.file;
     const editing = this.editing;
     return projectContent({
-      scan: file ? { fileName: file.name, copy: await embeddedCopyOf(file), characters: this.scan.characters } : null,
+      scan: file ? { fileName: file.name, copy: await embeddedCopyOf(file), characters: this.scan.characters, edits: this.scan.edits } : null,
       scanFromBase: file !== null && file === this.baseScanFile,
       editing: editing ? { document: editing.state.document, letters: editing.letters } : null,
       carried: this.carried,
@@ -102,7 +112,10 @@ export class Workbench {
         if (!scan.embedded) throw new Error(`${projectName}: the host sent the project without its scan. Please report this.`);
         file = fileFromCopy(scan.embedded, baseName(scan.path));
         if (!(await next.open(file))) throw new Error(`${projectName}: its scan could not be opened: ${next.problem ?? 'unknown problem'}`);
-        if (scan.characters !== undefined && !(await next.assign(scan.characters))) {
+        if (scan.sheetEdits !== undefined) {
+          if (!(await next.restoreEdits(scan.sheetEdits))) throw new Error(`${projectName}: the corrections of its scan's letters could not be made again: ${next.problem ?? 'unknown problem'} The file has not been changed.`);
+          if (scan.characters !== undefined) next.characters = scan.characters;
+        } else if (scan.characters !== undefined && !(await next.assign(scan.characters))) {
           throw new Error(`${projectName}: the characters of its scan could not be assigned: ${next.problem ?? 'unknown problem'}`);
         }
         if (sourced.length > 0) {

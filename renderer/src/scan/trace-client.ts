@@ -2,10 +2,10 @@
 // a callback. Requests are answered in order; a new trace supersedes nothing, it
 // simply queues behind the one running.
 import type { FittedSheet, TraceReply, TraceRequest, TraceSettings, TracedSheet } from './trace-protocol.ts';
-import type { TraceStage } from '../../../core/raster/index.ts';
+import type { SheetEdit, TraceStage } from '../../../core/raster/index.ts';
 
 /** Progress callback: share done (0–1) and the step running. */
-export type ProgressCallback = (fraction: number, stage: TraceStage | 'fitting') => void;
+export type ProgressCallback = (fraction: number, stage: TraceStage | 'fitting' | 'correcting') => void;
 
 type Pending = { resolve: (result: TracedSheet | FittedSheet) => void; reject: (error: Error) => void; onProgress?: ProgressCallback };
 
@@ -23,9 +23,9 @@ export class TraceClient {
     return this.send({ type: 'trace', id: this.nextId++, raster, settings }, onProgress, [raster.data.buffer as ArrayBuffer]) as Promise<TracedSheet>;
   }
 
-  /** Assigns characters, in reading order, to the letters of the last traced sheet. */
-  assign(characters: string): Promise<TracedSheet> {
-    return this.send({ type: 'assign', id: this.nextId++, characters }) as Promise<TracedSheet>;
+  /** The last traced sheet with `edits` applied in order (the whole list: undo sends it shortened). */
+  correct(edits: readonly SheetEdit[], onProgress?: ProgressCallback): Promise<TracedSheet> {
+    return this.send({ type: 'correct', id: this.nextId++, edits: [...edits] }, onProgress) as Promise<TracedSheet>;
   }
 
   /** Fits the assigned letters of the last traced sheet into outlines in font units. */

@@ -1,7 +1,7 @@
 // Messages between the page and the tracing worker. The worker runs the core
 // raster stage off the main thread, so tracing a whole sheet never freezes the
 // window, and reports progress as it goes.
-import type { Box, Contour, SheetSegmentation, TraceScanOptions, TraceStage } from '../../../core/raster/index.ts';
+import type { Box, Contour, SheetEdit, SheetGuides, SheetSegmentation, TraceScanOptions, TraceStage } from '../../../core/raster/index.ts';
 import type { GlyphOutline } from '../../../core/outline/index.ts';
 import type { FitWarning } from '../../../core/fit/index.ts';
 import type { LetterFrame } from '../../../core/pipeline/index.ts';
@@ -11,9 +11,22 @@ export type TraceSettings = Pick<TraceScanOptions, 'method' | 'level' | 'invert'
 
 export type TraceRequest =
   | { type: 'trace'; id: number; raster: { width: number; height: number; data: Uint8Array; dpi?: number }; settings: TraceSettings }
-  | { type: 'assign'; id: number; characters: string }
+  /**
+   * The traced sheet with `edits` applied in order (core/raster sheet-edits.ts): the
+   * whole list each time, so undo is the same list shortened; the worker re-applies
+   * only what differs from the list it last applied.
+   */
+  | { type: 'correct'; id: number; edits: readonly SheetEdit[] }
   /** Fits every assigned letter of the last traced sheet (core/pipeline fitTracedSheet). */
   | { type: 'fit'; id: number };
+
+/** One height guide as the fit will use it, in pixels above each row's baseline. */
+export interface GuideHeight {
+  readonly pixels: number;
+  /** 'set': by the user; 'measured': on the letters named; 'typical': the typical letter height, for want of a flat-topped capital. */
+  readonly from: 'set' | 'measured' | 'typical';
+  readonly letters: string;
+}
 
 export interface TracedSheet {
   width: number;
@@ -21,8 +34,14 @@ export interface TracedSheet {
   dpi: number;
   dpiAssumed: boolean;
   level: number | null;
+  /** Every contour, those of cut letters appended after the traced ones. */
   contours: Contour[];
+  /** The letters and rows as corrected. */
   sheet: SheetSegmentation;
+  /** Which guides the user set. */
+  guides: SheetGuides;
+  /** The cap height and x-height the fit will use (the x-height null while neither measured nor set). */
+  heights: { capHeight: GuideHeight; xHeight: GuideHeight | null };
   notes: string[];
 }
 
@@ -30,6 +49,8 @@ export interface TracedSheet {
 export interface FittedLetter {
   readonly index: number;
   readonly character: string;
+  /** The contours of the sheet that make the letter: the same list means the same ink. */
+  readonly contours: readonly number[];
   /** The letter's ink box on the scan, pixels. */
   readonly box: Box;
   /** Where the letter's font-unit frame sits on the scan. */
@@ -61,7 +82,7 @@ export interface FittedSheet {
 }
 
 export type TraceReply =
-  | { type: 'progress'; id: number; fraction: number; stage: TraceStage | 'fitting' }
+  | { type: 'progress'; id: number; fraction: number; stage: TraceStage | 'fitting' | 'correcting' }
   | { type: 'traced'; id: number; result: TracedSheet }
   | { type: 'fitted'; id: number; result: FittedSheet }
   | { type: 'failed'; id: number; message: string };
