@@ -4,14 +4,22 @@
 // longer matches its generator is caught by the tests instead of going stale.
 import { createHash } from 'node:crypto';
 import { readFile } from 'node:fs/promises';
+import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
-/** Where the shipped sheets and their manifest live. */
-export const DEMO_SHEETS_FOLDER = fileURLToPath(new URL('./sheets/', import.meta.url));
-
-/** The manifest's file name inside DEMO_SHEETS_FOLDER. */
+/** The manifest's file name inside the sheets folder. */
 export const DEMO_MANIFEST_NAME = 'demo-sheets.json';
+
+/**
+ * Where the shipped sheets and their manifest live: beside this file when it runs
+ * from source (tsx: the CLI, the browser host, the tests); when it runs compiled
+ * into build/electron/electron/demo/ (the desktop shell, which tsc builds without
+ * copying assets), the same folder of the source tree, three levels up.
+ */
+export const DEMO_SHEETS_FOLDER = [new URL('./sheets/', import.meta.url), new URL('../../../electron/demo/sheets/', import.meta.url)]
+  .map((url) => fileURLToPath(url))
+  .find((folder) => existsSync(join(folder, DEMO_MANIFEST_NAME))) ?? fileURLToPath(new URL('./sheets/', import.meta.url));
 
 /** One shipped sheet as the manifest lists it. */
 export interface DemoManifestSheet {
