@@ -98,6 +98,29 @@ export interface ExportedFont {
 }
 
 /**
+ * The demo project Stemline opens on: sheets drawn for an invented client (electron/demo/),
+ * each as PNG bytes for the page to decode, with the characters drawn on it.
+ */
+export interface DemoProject {
+  /** What the window calls the project, e.g. "Demo: the Pellworth & Daughters sign alphabet". */
+  title: string;
+  /** The story behind it, in a sentence. */
+  description: string;
+  /** The font family its letters make. */
+  familyName: string;
+  sheets: DemoSheet[];
+}
+
+export interface DemoSheet {
+  /** The scan's file name, e.g. "pellworth-alphabet.png". */
+  name: string;
+  /** The PNG file's bytes, in standard base64. */
+  base64: string;
+  /** The characters drawn, in reading order (rows separated by spaces). */
+  characters: string;
+}
+
+/**
  * Every intent the renderer may ask of the host, with its argument and result.
  * Later capabilities add entries here; each must validate its own arguments.
  */
@@ -128,6 +151,8 @@ export interface HostIntents {
    * browser mode, the save dialog otherwise. Null: the user cancelled.
    */
   exportFont: { args: FontContent & { name?: string }; result: ExportedFont | null };
+  /** The demo project to open when the window starts with no project; null where this host offers none. */
+  openDemo: { args: Record<string, never>; result: DemoProject | null };
 }
 
 export type IntentName = keyof HostIntents;
@@ -149,6 +174,7 @@ export const INTENT_NAMES = [
   'discardRecoveredWork',
   'buildProofFont',
   'exportFont',
+  'openDemo',
 ] as const satisfies readonly IntentName[];
 
 /** The IPC channel an intent travels on in the Electron shell. */

@@ -48,6 +48,8 @@ export interface BrowserHostPlaces {
   workspace: string;
   /** Where the autosaved copies of projects never saved go; default the per-user app folder's (app-data-folder.ts). */
   untitledFolder?: string;
+  /** The demo's sheets: absent, the ones shipped with Stemline; null, no demo (the window starts on an empty project). */
+  demoFolder?: string | null;
 }
 
 /** A request body over its limit. */
@@ -88,6 +90,7 @@ export async function startBrowserHost(rendererDir: string, port: number, places
   const context: HostContext = {
     host: 'browser',
     projects: projectAccess(workspacePlaces(workspace), resolve(places.untitledFolder ?? untitledRecoveryFolder())),
+    ...(places.demoFolder === undefined ? {} : { demoFolder: places.demoFolder }),
   };
   const server = createServer((request, response) => {
     route(root, context, request, response).catch((error: unknown) => {

@@ -15,7 +15,9 @@ export type HandlerErrorKind =
   /** A project file (or an exported font) could not be read or written; the message says why. */
   | 'project-file'
   /** The project's glyphs cannot make a valid font; the message names the glyph or value to change. */
-  | 'font-build';
+  | 'font-build'
+  /** The demo project's sheets are missing or damaged; the message says how to draw them again. */
+  | 'demo-missing';
 
 export class HandlerError extends Error {
   readonly kind: HandlerErrorKind;

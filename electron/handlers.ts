@@ -9,6 +9,7 @@ import type { HostContext } from './host-context.ts';
 import { projectArguments } from './project-arguments.ts';
 import { fontArguments } from './font-arguments.ts';
 import { buildProofFont, exportFont } from './font-handlers.ts';
+import { openDemo } from './demo-handlers.ts';
 import { autosaveProject, discardRecoveredWork, findRecoveredWork, listProjects, openProject, saveProject, saveProjectAs } from './project-handlers.ts';
 
 export type { HostContext } from './host-context.ts';
@@ -35,6 +36,7 @@ const HANDLERS: HandlerTable = {
   discardRecoveredWork,
   buildProofFont,
   exportFont,
+  openDemo,
 };
 
 /** Argument checks per intent; each returns the validated arguments or throws. */
@@ -49,6 +51,7 @@ const VALIDATORS: { [K in IntentName]: (raw: unknown) => HostIntents[K]['args'] 
   discardRecoveredWork: (raw) => projectArguments('discardRecoveredWork', raw),
   buildProofFont: (raw) => fontArguments('buildProofFont', raw),
   exportFont: (raw) => fontArguments('exportFont', raw),
+  openDemo: (raw) => expectEmptyObject('openDemo', raw),
 };
 
 function expectEmptyObject(intent: string, raw: unknown): Record<string, never> {

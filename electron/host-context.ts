@@ -18,6 +18,12 @@ export interface ProjectAccess {
 export interface HostContext {
   host: HostKind;
   projects: ProjectAccess;
+  /**
+   * Where the demo project's sheets are: absent, the ones shipped with Stemline
+   * (electron/demo/sheets/); null, this host offers no demo and the window starts
+   * on an empty project.
+   */
+  demoFolder?: string | null;
 }
 
 /** Project access with nothing chosen yet. */

@@ -31,6 +31,7 @@ const stemlineHostApi = {
   discardRecoveredWork: (args) => callHost('discardRecoveredWork', args),
   buildProofFont: (args) => callHost('buildProofFont', args),
   exportFont: (args) => callHost('exportFont', args),
+  openDemo: (args) => callHost('openDemo', args),
 } satisfies import('./api-contract.ts').StemlineHostApi;
 
 contextBridge.exposeInMainWorld('stemline', stemlineHostApi);

@@ -17,7 +17,8 @@ if (!Number.isInteger(port) || port < 0 || port > 65535) {
   process.exit(2);
 }
 const untitledFolder = flag('--untitled-folder');
-startBrowserHost(RENDERER_BUILD_DIR, port, { workspace: flag('--workspace') ?? process.cwd(), ...(untitledFolder === undefined ? {} : { untitledFolder }) }).then(
+const demo = process.argv.includes('--no-demo') ? { demoFolder: null } : {};
+startBrowserHost(RENDERER_BUILD_DIR, port, { workspace: flag('--workspace') ?? process.cwd(), ...(untitledFolder === undefined ? {} : { untitledFolder }), ...demo }).then(
   (host) => console.log(`Stemline is running at ${host.url}`),
   (error: unknown) => {
     console.error(error instanceof Error ? error.message : String(error));

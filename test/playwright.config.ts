@@ -34,8 +34,10 @@ export default defineConfig({
       args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
     },
   },
+  // The specs start from an empty project, as after "Start a new project from your own
+  // scans": this host offers no demo (--no-demo). demo.spec.ts starts its own host with it.
   webServer: {
-    command: `npx tsx electron/serve-browser.ts --port ${TEST_HOST_PORT} --workspace "${BROWSER_WORKSPACE}" --untitled-folder "${BROWSER_UNTITLED_FOLDER}"`,
+    command: `npx tsx electron/serve-browser.ts --port ${TEST_HOST_PORT} --workspace "${BROWSER_WORKSPACE}" --untitled-folder "${BROWSER_UNTITLED_FOLDER}" --no-demo`,
     cwd: '..',
     url: `http://127.0.0.1:${TEST_HOST_PORT}/`,
     reuseExistingServer: false,

@@ -52,6 +52,7 @@ const browserHostApi: StemlineHostApi = {
   discardRecoveredWork: (args) => postIntent('discardRecoveredWork', args),
   buildProofFont: (args) => postIntent('buildProofFont', args),
   exportFont: (args) => postIntent('exportFont', args),
+  openDemo: (args) => postIntent('openDemo', args),
 };
 
 /** The host API for this window: the preload bridge in Electron, HTTP in a browser. */

@@ -46,6 +46,8 @@ export class ProjectSession {
   status = $state('');
   chooser = $state.raw<ChooserRequest | null>(null);
   recovery = $state.raw<RecoveryOffer | null>(null);
+  /** While the window shows (or is opening) the demo project: its title and story; null otherwise. */
+  demo = $state.raw<{ title: string; description: string } | null>(null);
   private writes: Promise<unknown> = Promise.resolve();
   private readonly autosave = new AutosaveSchedule(() => void this.autosaveNow());
 
@@ -62,9 +64,9 @@ export class ProjectSession {
     return !sameStamp(this.workbench.stamp, this.savedStamp);
   }
 
-  /** The project's title: its file name without the extension, or "Untitled project". */
+  /** The project's title: its file name without the extension, the demo's title, or "Untitled project". */
   get title(): string {
-    return this.name?.replace(/\.stemline$/i, '') ?? 'Untitled project';
+    return this.name?.replace(/\.stemline$/i, '') ?? this.demo?.title ?? 'Untitled project';
   }
 
   /** Called whenever the workbench's stamp changes: schedules autosave while there are unsaved changes. */
@@ -249,6 +251,49 @@ export class ProjectSession {
 
   private async restore(project: RecoveredWork['project'], name: string): Promise<void> {
     await this.workbench.restore(project, name);
+    this.demo = null;
+    this.onRestored();
+  }
+
+  /**
+   * Opens the host's demo project when the window starts empty: nothing is offered
+   * for recovery and the user has not begun anything. The demo opens unsaved but
+   * clean — nothing is autosaved until the user changes it. Problems are shown.
+   */
+  async openDemo(): Promise<void> {
+    if (this.recovery !== null || this.handle !== null || this.dirty) return;
+    try {
+      const demo = await host.openDemo({});
+      if (demo === null || this.recovery !== null || this.handle !== null) return;
+      this.demo = { title: demo.title, description: demo.description };
+      if (!(await this.workbench.openDemo(demo))) {
+        // Overtaken by what the user began meanwhile: that is what the window shows.
+        if (this.name === null) this.demo = null;
+        return;
+      }
+      this.savedStamp = this.workbench.stamp;
+      this.status = `Opened the demo: ${demo.sheets[0]?.characters.replace(/\s/g, '').length ?? 0} letters fitted`;
+      this.onRestored();
+    } catch (error) {
+      this.demo = null;
+      this.problem = messageOf(error);
+    }
+  }
+
+  /**
+   * Starts a new, empty project in the window. Unsaved changes are autosaved first, so
+   * they can be recovered; a demo still loading is dropped.
+   */
+  async startNew(): Promise<void> {
+    this.problem = null;
+    await this.autosaveNow();
+    this.workbench.startNew();
+    this.demo = null;
+    this.handle = null;
+    this.name = null;
+    this.untitledHandle = null;
+    this.savedStamp = this.workbench.stamp;
+    this.status = 'Started a new project';
     this.onRestored();
   }
 

@@ -5,7 +5,7 @@
 import { ScanSession } from '../scan/scan-session.svelte.ts';
 import { LetterEditing } from '../editor/letter-editing.svelte.ts';
 import type { ProjectData, ProjectGlyph } from '../../../electron/io/project/project-schema.ts';
-import type { FontContent } from '../../../electron/api-contract.ts';
+import type { DemoProject, FontContent } from '../../../electron/api-contract.ts';
 import { embeddedCopyOf, fileFromCopy } from './scan-copy.ts';
 import { projectContent } from './project-content.ts';
 import { restoredLetters } from './restored-letters.ts';
@@ -28,6 +28,8 @@ export class Workbench {
   restoring = $state.raw<ScanSession | null>(null);
   /** The scan file restored from `base`, to tell it from a scan opened since. */
   private baseScanFile: File | null = null;
+  /** Counts the times the window's project was replaced, so a demo still loading knows it was overtaken. */
+  private generation = 0;
 
   /**
    * Fits the assigned letters in the worker and starts editing them. Letters already
@@ -94,6 +96,7 @@ export class Workbench {
    * left exactly as it was.
    */
   async restore(project: ProjectData, projectName: string): Promise<void> {
+    this.generation++;
     if (project.scans.length > 1) {
       throw new Error(`${projectName} holds ${project.scans.length} scans; this version of Stemline edits one scan per project. The file has not been changed.`);
     }
@@ -136,6 +139,63 @@ export class Workbench {
     this.carried = carried;
     this.base = project;
     this.baseScanFile = file;
+    previous.dispose();
+  }
+
+  /**
+   * Opens the demo project the way a user starts one: its scan opened, its characters
+   * assigned and its letters fitted, with the progress shown as for a project being
+   * opened. True when the window now shows it; false when it was overtaken (a new
+   * project started, a project or a scan opened meanwhile), leaving the window as
+   * the user made it. Throws an Error for the user when the demo cannot be opened.
+   */
+  async openDemo(demo: DemoProject): Promise<boolean> {
+    const sheet = demo.sheets[0];
+    if (sheet === undefined) throw new Error('The demo project came without its sheet. Start a new project from your own scans instead.');
+    const mine = ++this.generation;
+    const untouched = this.scan;
+    const next = new ScanSession();
+    this.restoring = next;
+    const overtaken = () => mine !== this.generation || this.scan !== untouched || untouched.file !== null;
+    try {
+      const file = new File([Uint8Array.from(atob(sheet.base64), (c) => c.charCodeAt(0))], sheet.name, { type: 'image/png' });
+      if (!(await next.open(file))) throw new Error(`The demo's scan could not be opened: ${next.problem ?? 'unknown problem'}`);
+      if (overtaken()) return this.dropDemo(next);
+      if (!(await next.assign(sheet.characters))) throw new Error(`The demo's characters could not be assigned: ${next.problem ?? 'unknown problem'}`);
+      if (overtaken()) return this.dropDemo(next);
+      if (!(await next.fit()) || !next.fitted) throw new Error(`The demo's letters could not be fitted: ${next.problem ?? 'unknown problem'}`);
+      if (overtaken()) return this.dropDemo(next);
+    } catch (error) {
+      next.dispose();
+      throw error;
+    } finally {
+      if (this.restoring === next) this.restoring = null;
+    }
+    const previous = this.scan;
+    this.scan = next;
+    this.editing = new LetterEditing(next.fitted);
+    this.carried = [];
+    this.base = null;
+    this.baseScanFile = null;
+    previous.dispose();
+    return true;
+  }
+
+  private dropDemo(session: ScanSession): false {
+    session.dispose();
+    return false;
+  }
+
+  /** Empties the window for a new project (a demo still loading is dropped). */
+  startNew(): void {
+    this.generation++;
+    this.restoring = null;
+    const previous = this.scan;
+    this.scan = new ScanSession();
+    this.editing = null;
+    this.carried = [];
+    this.base = null;
+    this.baseScanFile = null;
     previous.dispose();
   }
 }
