@@ -91,6 +91,8 @@ export function toScanPixels(frame: LetterFrame, p: Point): Point {
 export function traceLetters(image: ScanImage, options: TraceLettersOptions = {}): TracedLetters {
   const report = options.onProgress;
   const scan = traceScan(image, {
+    // A 1-bit scan is fitted on smoothed boundaries, not on its pixel staircase (bilevel-smoothing.ts).
+    smoothBilevel: true,
     ...options.scan,
     onProgress: (fraction, stage) => report?.(fraction * RASTER_PROGRESS_SHARE, stage),
   });

@@ -26,7 +26,8 @@ export interface TraceSheetsOptions {
 export function traceSheets(images: readonly ScanImage[], characters: string, options: TraceSheetsOptions = {}): TracedLetters[] {
   const traced: TraceScanResult[] = images.map((image, i) => {
     options.onProgress?.(i / (2 * images.length), i);
-    return traceScan(image, options.scan ?? {});
+    // A 1-bit scan is fitted on smoothed boundaries, not on its pixel staircase (bilevel-smoothing.ts).
+    return traceScan(image, { smoothBilevel: true, ...options.scan });
   });
   const wanted = splitCharacters(characters);
   const counts = traced.map((t) => t.sheet.letters.length);

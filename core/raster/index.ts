@@ -57,3 +57,4 @@ export {
   type SheetEdit,
   type SheetGuides,
 } from './sheet-edits.ts';
+export { BILEVEL_SMOOTHING_SIGMA_PX, smoothedBilevelBlurPx, smoothedMaskField } from './bilevel-smoothing.ts';

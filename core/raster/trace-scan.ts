@@ -7,14 +7,16 @@
 import { binarize, type BinarizeMethod, type BinarizeOptions } from './binarize.ts';
 import { cleanupMask } from './cleanup.ts';
 import { estimateEdgeBlur } from './edge-blur.ts';
-import type { IsoLevelField } from './iso-level-field.ts';
+import { uniformIsoLevel, type IsoLevelField } from './iso-level-field.ts';
+import { marchingSquaresChains } from './marching-squares.ts';
+import { smoothedBilevelBlurPx, smoothedMaskField } from './bilevel-smoothing.ts';
 import { nestContours } from './nesting.ts';
 import { assumedResolutionNote, millimetresToPixels, resolveResolution, type Resolution } from './physical-units.ts';
 import { RasterError } from './raster-error.ts';
 import { assertGreyRaster } from './raster-validation.ts';
 import { segmentSheet, type SheetSegmentation } from './segment-sheet.ts';
 import type { PaperAndInkLevels } from './threshold-otsu.ts';
-import { traceBoundaries, type BoundaryMethod } from './trace-boundaries.ts';
+import { DEFAULT_ISO_LEVEL, traceBoundaries, type BoundaryMethod } from './trace-boundaries.ts';
 import type { Contour, GreyRaster, InkMask, ScanImage } from './types.ts';
 
 /** Steps reported to onProgress, in order. */
@@ -36,6 +38,13 @@ export interface TraceScanOptions {
   readonly pinholeAreaMm2?: number;
   /** Boundary geometry; default 'auto' (pixel edges for bilevel scans). */
   readonly boundary?: BoundaryMethod;
+  /**
+   * For a bilevel (1-bit) scan traced with 'auto': place the boundaries on the mask
+   * blurred by BILEVEL_SMOOTHING_SIGMA_PX instead of on the pixel staircase
+   * (bilevel-smoothing.ts), as fitting needs; the result then says 'marching-squares'
+   * and gives that blur as `edgeBlurPx`. Default false: the exact pixel edges.
+   */
+  readonly smoothBilevel?: boolean;
   /** Characters drawn on the sheet, in reading order, to assign to the letters. */
   readonly characters?: string;
   /** Called at the start of each step with the fraction of the work done (0–1). */
@@ -128,12 +137,14 @@ export function traceScan(scan: ScanImage, options: TraceScanOptions = {}): Trac
   }
 
   report('boundaries');
-  const traced = traceBoundaries(binarized.grey, cleaned.mask, { method: options.boundary ?? 'auto', isoField: binarized.isoField });
+  const exact = traceBoundaries(binarized.grey, cleaned.mask, { method: options.boundary ?? 'auto', isoField: binarized.isoField });
+  const smoothed = options.smoothBilevel === true && (options.boundary ?? 'auto') === 'auto' && exact.method === 'pixel-edges';
+  const traced = smoothed ? { method: 'marching-squares' as const, chains: marchingSquaresChains(smoothedMaskField(cleaned.mask), cleaned.mask, uniformIsoLevel(DEFAULT_ISO_LEVEL)) } : exact;
 
   report('nesting');
   const contours = nestContours(traced.chains);
 
-  const edgeBlurPx = estimateEdgeBlur(binarized.grey, contours, binarized.levels, traced.method === 'pixel-edges');
+  const edgeBlurPx = smoothed ? smoothedBilevelBlurPx() : estimateEdgeBlur(binarized.grey, contours, binarized.levels, traced.method === 'pixel-edges');
 
   report('segmentation');
   const sheet = segmentSheet(contours, options.characters === undefined ? {} : { characters: options.characters });

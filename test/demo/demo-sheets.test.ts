@@ -24,22 +24,19 @@ const shipped = manifest.sheets[0]!;
 
 /**
  * Warnings measured on the shipped sheet when this test was written (70 glyphs):
- * the PNG 3 in all (near-miss kinks on L, R and V), 1,207 segments; the TIFF traced
- * with sub-pixel boundaries 25 in all, at most 5 on one glyph, 1,952 segments. The
+ * the PNG 3 in all (near-miss kinks on L, R and V), 1,205 segments; the 1-bit TIFF on
+ * smoothed boundaries 8 in all, at most 2 on one glyph, 1,515 segments. The
  * limits sit just above, so a change that makes the demo noticeably noisier fails.
  */
-const WARNING_LIMITS = { png: { inAll: 6, perGlyph: 2 }, tiff: { inAll: 32, perGlyph: 6 } } as const;
+const WARNING_LIMITS = { png: { inAll: 6, perGlyph: 2 }, tiff: { inAll: 11, perGlyph: 3 } } as const;
 
 /**
- * How each copy is traced. The PNG as the app and `stemline build` take it. The
- * 1-bit TIFF with sub-pixel boundaries (`boundary: 'marching-squares'`): by default
- * Stemline traces a bilevel scan along the exact pixel staircase, and the fitter,
- * held to 0.75 px, follows the steps — 13,863 segments and 3,020 warnings on this
- * sheet, and over half a minute of fitting — which is a limit of the pipeline on
- * 1-bit scans, not of the sheet. Letters and reading order are checked on the
- * default tracing too.
+ * How each copy is traced: both as the app and `stemline build` take them. The 1-bit
+ * TIFF is fitted on smoothed boundaries (core/raster/bilevel-smoothing.ts); fitted on
+ * its exact pixel staircase it gave 13,863 segments and 3,020 warnings, and over half
+ * a minute of fitting.
  */
-const TRACING = { png: {}, tiff: { boundary: 'marching-squares' } } as const;
+const TRACING = { png: {}, tiff: {} } as const;
 
 /** Contours a letter must have when its pieces were grouped right: holes, dots and two-mark punctuation. */
 const EXPECTED_CONTOURS: Readonly<Record<string, number>> = { A: 2, B: 3, O: 2, Q: 2, a: 2, i: 2, j: 2, '8': 3, '!': 2, '?': 2, ':': 2, '.': 1, l: 1 };
@@ -109,7 +106,7 @@ describeWith('the demo sheet through Stemline’s own pipeline', [OTS_SANITIZE],
     });
   }
 
-  it('finds the same letters in reading order on the TIFF traced as Stemline traces 1-bit scans by default', async () => {
+  it('finds the same letters in reading order on the TIFF traced along its exact pixel edges (as `stemline boundaries` writes them)', async () => {
     const scan = await decodeScanBytes(readFileSync(join(DEMO_SHEETS_FOLDER, shipped.tiff)), shipped.tiff);
     const sheet = traceScan({ raster: { ...scan.raster, dpi: scan.dpi ?? 0 } }, { characters: shipped.characters });
     expect(sheet.boundary).toBe('pixel-edges');

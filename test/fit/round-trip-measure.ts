@@ -16,8 +16,10 @@ import { addGlyphPath, loadFont, renderAntialiased, type FontPlacement } from '.
 import { REFERENCE_FONTS } from '../support/require-tool.ts';
 import { commandsToContours, contourAreas, corners, extremaInside, hausdorff, kinks, matched, onCurveCount, outlineToContours, turnZones } from './outline-metrics.ts';
 
-export type RoundTripVariant = 'clean 1 px/unit' | 'clean 0.5 px/unit' | 'rough 1 px/unit';
-export const ALL_VARIANTS: readonly RoundTripVariant[] = ['clean 1 px/unit', 'clean 0.5 px/unit', 'rough 1 px/unit'];
+export type RoundTripVariant = 'clean 1 px/unit' | 'clean 0.5 px/unit' | 'rough 1 px/unit' | '1-bit 1 px/unit';
+export const ALL_VARIANTS: readonly RoundTripVariant[] = ['clean 1 px/unit', 'clean 0.5 px/unit', 'rough 1 px/unit', '1-bit 1 px/unit'];
+/** Grey level at which the clean render is thresholded for the 1-bit variant: the middle of the scale, as a 1-bit scanner's fixed threshold. */
+const ONE_BIT_THRESHOLD = 128;
 export const ALL_GLYPHS = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789';
 export const ROUND_TRIP_FONTS = {
   'Cantarell Regular': REFERENCE_FONTS.cantarellRegular.path,
@@ -152,7 +154,11 @@ export function measureGlyph(font: RoundTripFont, commands: readonly PathCommand
     ];
     raster = degrade(raster, { ...ROUGH_SCAN, specks, seed });
   }
-  const traced = traceScan({ raster, dpiX: SCAN_DPI }, rough ? { speckAreaMm2: SPECK_AREA_MM2 } : {});
+  if (variant === '1-bit 1 px/unit') {
+    const data = raster.data.map((v) => (v < ONE_BIT_THRESHOLD ? 0 : 255));
+    raster = { ...raster, data };
+  }
+  const traced = traceScan({ raster, dpiX: SCAN_DPI }, rough ? { speckAreaMm2: SPECK_AREA_MM2 } : { smoothBilevel: true });
   const chains = traced.contours.map((c) => ({
     depth: c.depth,
     points: c.points.map((p) => ({ x: (p.x - placement.originX) / scale, y: (placement.originY - p.y) / scale })),

@@ -19,12 +19,15 @@ import { ALL_GLYPHS, DEFAULT_TOLERANCE_PER_PIXEL, measureGlyph, measureRoundTrip
 import { loadFont } from '../raster/reference-render.ts';
 
 const SUBSET = 'aegnosBHRS28';
+/** The variants held to thresholds here; the 1-bit copy is checked in test/raster/bilevel-smoothing.test.ts and measured in full by the benchmark. */
+const SUBSET_VARIANTS = ['clean 1 px/unit', 'clean 0.5 px/unit', 'rough 1 px/unit'] as const;
+type SubsetVariant = (typeof SUBSET_VARIANTS)[number];
 
 interface Thresholds {
   /** Per variant: Hausdorff p95 limit (units). */
-  readonly hausdorffP95: Record<VariantSummary['variant'], number>;
+  readonly hausdorffP95: Record<SubsetVariant, number>;
   /** Per variant: on-curve ratio limit. */
-  readonly onCurveRatio: Record<VariantSummary['variant'], number>;
+  readonly onCurveRatio: Record<SubsetVariant, number>;
   readonly cornerRecall: number;
   readonly cornerPrecision: number;
   /** Kinks allowed over the subset (target 0). */
@@ -65,19 +68,19 @@ function roundTripSuite(font: ReferenceFont & { label: RoundTripFont }): void {
   describeWithFont(`round trip of ${font.label}: render → trace → fit → compare with the font`, font, () => {
     let summaries: readonly VariantSummary[] = [];
     beforeAll(() => {
-      summaries = measureRoundTrip({ fonts: [font.label], glyphs: SUBSET }).summaries;
+      summaries = measureRoundTrip({ fonts: [font.label], glyphs: SUBSET, variants: SUBSET_VARIANTS }).summaries;
       console.table(summaryTable(summaries));
     }, 180_000);
     const limits = THRESHOLDS[font.label];
 
     it('follows the font outline closely (Hausdorff p95 per variant)', () => {
       // Reference: the font's own outline (opentype.js glyph.path.commands).
-      for (const s of summaries) expect(s.hausdorffP95, s.variant).toBeLessThanOrEqual(limits.hausdorffP95[s.variant]);
+      for (const s of summaries) expect(s.hausdorffP95, s.variant).toBeLessThanOrEqual(limits.hausdorffP95[s.variant as SubsetVariant]);
     });
 
     it('uses about as few on-curve points as the type designer did', () => {
       // Reference: on-curve points of the font's own contours.
-      for (const s of summaries) expect(s.onCurveRatio, s.variant).toBeLessThanOrEqual(limits.onCurveRatio[s.variant]);
+      for (const s of summaries) expect(s.onCurveRatio, s.variant).toBeLessThanOrEqual(limits.onCurveRatio[s.variant as SubsetVariant]);
     });
 
     it('keeps the designer\'s corners sharp and invents almost none (tangent turn > 20° within 4 units)', () => {

@@ -110,6 +110,8 @@ onmessage = (event: MessageEvent<TraceRequest>) => {
   try {
     if (request.type === 'trace') {
       const scan = traceScan({ raster: request.raster }, {
+        // A 1-bit scan is fitted on smoothed boundaries, not on its pixel staircase (core/raster/bilevel-smoothing.ts).
+        smoothBilevel: true,
         ...request.settings,
         onProgress: (fraction, stage) => reply({ type: 'progress', id: request.id, fraction, stage }),
       });
