@@ -9,7 +9,8 @@ import type { HostContext } from './host-context.ts';
 import { projectArguments } from './project-arguments.ts';
 import { fontArguments } from './font-arguments.ts';
 import { buildProofFont, exportFont } from './font-handlers.ts';
-import { autosaveProject, discardRecoveredWork, findRecoveredWork, listProjects, openProject, saveProject, saveProjectAs } from './project-handlers.ts';
+import { autosaveProject, discardRecoveredWork, findRecoveredWork, listProjects, listRecentProjects, openProject, openRecentProject, saveProject, saveProjectAs } from './project-handlers.ts';
+import { closeWindow, projectStateArguments, reportProjectState } from './window-handlers.ts';
 
 export type { HostContext } from './host-context.ts';
 
@@ -35,6 +36,10 @@ const HANDLERS: HandlerTable = {
   discardRecoveredWork,
   buildProofFont,
   exportFont,
+  listRecentProjects,
+  openRecentProject,
+  reportProjectState,
+  closeWindow,
 };
 
 /** Argument checks per intent; each returns the validated arguments or throws. */
@@ -49,6 +54,10 @@ const VALIDATORS: { [K in IntentName]: (raw: unknown) => HostIntents[K]['args'] 
   discardRecoveredWork: (raw) => projectArguments('discardRecoveredWork', raw),
   buildProofFont: (raw) => fontArguments('buildProofFont', raw),
   exportFont: (raw) => fontArguments('exportFont', raw),
+  listRecentProjects: (raw) => expectEmptyObject('listRecentProjects', raw),
+  openRecentProject: (raw) => projectArguments('openRecentProject', raw),
+  reportProjectState: (raw) => projectStateArguments(raw),
+  closeWindow: (raw) => expectEmptyObject('closeWindow', raw),
 };
 
 function expectEmptyObject(intent: string, raw: unknown): Record<string, never> {

@@ -30,6 +30,7 @@ export function dialogPlaces(dialogs: ProjectDialogs): ProjectPlaces {
   };
   return {
     list: async () => ({ kind: 'dialog' }),
+    mayReopen: async (path) => isAbsolute(path) && hasProjectExtension(path),
     chooseToOpen: async (name) => {
       refuseName(name);
       return answered(await dialogs.showOpen());

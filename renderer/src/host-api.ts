@@ -52,6 +52,12 @@ const browserHostApi: StemlineHostApi = {
   discardRecoveredWork: (args) => postIntent('discardRecoveredWork', args),
   buildProofFont: (args) => postIntent('buildProofFont', args),
   exportFont: (args) => postIntent('exportFont', args),
+  listRecentProjects: (args) => postIntent('listRecentProjects', args),
+  openRecentProject: (args) => postIntent('openRecentProject', args),
+  reportProjectState: (args) => postIntent('reportProjectState', args),
+  closeWindow: (args) => postIntent('closeWindow', args),
+  // A browser tab has no application menu: nothing ever arrives.
+  onMenuCommand: () => () => undefined,
 };
 
 /** The host API for this window: the preload bridge in Electron, HTTP in a browser. */
