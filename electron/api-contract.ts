@@ -112,6 +112,14 @@ export interface ProjectState {
   canRedo: boolean;
 }
 
+/** A scan the user chose in the host's dialog, for the page to decode and trace. */
+export interface ImportedScan {
+  /** The scan file's name, e.g. "sheet-1.png". */
+  name: string;
+  /** The file's bytes (carried as they are over the desktop app's IPC). */
+  bytes: Uint8Array;
+}
+
 /** Where an exported font was written. */
 export interface ExportedFont {
   /** The font file's name, e.g. "Harbour Signs.otf". */
@@ -157,6 +165,8 @@ export interface HostIntents {
   listRecentProjects: { args: Record<string, never>; result: { projects: RecentProject[] } };
   /** Opens the project file `handle` names: one from listRecentProjects, or a file the system asked the app to open. */
   openRecentProject: { args: { handle: ProjectHandle }; result: OpenedProject };
+  /** Desktop app: asks for a scan in the open dialog and returns its bytes. Null: the user cancelled. Browser mode refuses (the page takes scans itself). */
+  importScan: { args: Record<string, never>; result: ImportedScan | null };
   /** The window's project state changed (title, unsaved changes, undo and redo). */
   reportProjectState: { args: ProjectState; result: Record<string, never> };
   /** Closes the window now, once its work is saved (after the close prompt's Save). False where the host has no window to close (browser mode). */
@@ -223,6 +233,7 @@ export const INTENT_NAMES = [
   'exportFont',
   'listRecentProjects',
   'openRecentProject',
+  'importScan',
   'reportProjectState',
   'closeWindow',
 ] as const satisfies readonly IntentName[];

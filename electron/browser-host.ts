@@ -106,7 +106,9 @@ export async function startBrowserHost(rendererDir: string, port: number, places
     const verdict = checkAccess({ url: request.url ?? '/', headers: request.headers }, authority, token);
     if (!verdict.allowed) {
       request.resume();
-      sendJson(response, verdict.status, { error: { kind: 'forbidden', message: verdict.message } });
+      // A page asked for by a browser gets the message as text, an intent as the renderer's error.
+      if (request.method === 'GET' || request.method === 'HEAD') sendText(response, verdict.status, verdict.message);
+      else sendJson(response, verdict.status, { error: { kind: 'forbidden', message: verdict.message } });
       return;
     }
     if (verdict.path === '') {
@@ -219,6 +221,11 @@ async function serveFile(root: string, pathname: string, response: ServerRespons
   } catch {
     sendJson(response, 404, { error: { kind: 'not-found', message: `No such file: ${pathname}` } });
   }
+}
+
+function sendText(response: ServerResponse, status: number, message: string): void {
+  response.writeHead(status, { ...pageSecurityHeaders(), 'content-type': 'text/plain; charset=utf-8', 'cache-control': 'no-store' });
+  response.end(`${message}\n`);
 }
 
 function sendJson(response: ServerResponse, status: number, body: unknown): void {

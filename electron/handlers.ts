@@ -11,6 +11,7 @@ import { fontArguments } from './font-arguments.ts';
 import { buildProofFont, exportFont } from './font-handlers.ts';
 import { autosaveProject, discardRecoveredWork, findRecoveredWork, listProjects, listRecentProjects, openProject, openRecentProject, saveProject, saveProjectAs } from './project-handlers.ts';
 import { closeWindow, projectStateArguments, reportProjectState } from './window-handlers.ts';
+import { importScan } from './scan-import-handler.ts';
 
 export type { HostContext } from './host-context.ts';
 
@@ -38,6 +39,7 @@ const HANDLERS: HandlerTable = {
   exportFont,
   listRecentProjects,
   openRecentProject,
+  importScan,
   reportProjectState,
   closeWindow,
 };
@@ -56,6 +58,7 @@ const VALIDATORS: { [K in IntentName]: (raw: unknown) => HostIntents[K]['args'] 
   exportFont: (raw) => fontArguments('exportFont', raw),
   listRecentProjects: (raw) => expectEmptyObject('listRecentProjects', raw),
   openRecentProject: (raw) => projectArguments('openRecentProject', raw),
+  importScan: (raw) => expectEmptyObject('importScan', raw),
   reportProjectState: (raw) => projectStateArguments(raw),
   closeWindow: (raw) => expectEmptyObject('closeWindow', raw),
 };

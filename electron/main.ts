@@ -33,6 +33,9 @@ import { userGuidePath } from './shell/user-guide.ts';
 /** The file-type filter of the project dialogs. */
 const PROJECT_FILTERS = [{ name: `${APP_NAME} project`, extensions: [PROJECT_EXTENSION.slice(1)] }];
 
+/** The file-type filter of the import-scan dialog: the image types the scan decoder reads (electron/io/decode-scan.ts). */
+const SCAN_FILTERS = [{ name: 'Scans', extensions: ['png', 'jpg', 'jpeg', 'tif', 'tiff', 'webp'] }];
+
 /** The file-type filter of the font export dialog. */
 const FONT_FILTERS = [{ name: 'OpenType font', extensions: [FONT_FILE_EXTENSION.slice(1)] }];
 
@@ -89,6 +92,11 @@ function dialogsFor(contents: WebContents) {
       const options = { defaultPath: suggestedName, filters: PROJECT_FILTERS };
       const answer = await show((w) => dialog.showSaveDialog(w, options), () => dialog.showSaveDialog(options));
       return answer.canceled ? null : answer.filePath || null;
+    },
+    showOpenScan: async () => {
+      const options = { title: 'Import a scan', properties: ['openFile' as const], filters: SCAN_FILTERS };
+      const answer = await show((w) => dialog.showOpenDialog(w, options), () => dialog.showOpenDialog(options));
+      return answer.canceled ? null : (answer.filePaths[0] ?? null);
     },
     showExportFont: async (suggestedName) => {
       const options = { title: 'Export the font', defaultPath: suggestedName, filters: FONT_FILTERS };

@@ -45,6 +45,7 @@ const stemlineHostApi = {
   exportFont: (args) => callHost('exportFont', args),
   listRecentProjects: (args) => callHost('listRecentProjects', args),
   openRecentProject: (args) => callHost('openRecentProject', args),
+  importScan: (args) => callHost('importScan', args),
   reportProjectState: (args) => callHost('reportProjectState', args),
   closeWindow: (args) => callHost('closeWindow', args),
   onMenuCommand,

@@ -32,4 +32,10 @@ export interface ProjectPlaces {
    * directly inside the workspace in browser mode.
    */
   mayReopen(path: string): Promise<boolean>;
+  /**
+   * The absolute path of the scan the user chose to import (File ▸ Import scans… in the
+   * desktop app), or null when they cancelled. Browser mode has no such dialog: the page
+   * takes scans itself, and this throws HandlerError 'path-refused'.
+   */
+  chooseScanToImport(): Promise<string | null>;
 }

@@ -46,6 +46,9 @@ export function workspacePlaces(workspace: string): ProjectPlaces {
         return false;
       }
     },
+    chooseScanToImport: async () => {
+      throw new HandlerError('path-refused', 'In the browser, scans are chosen in the page: use its "Open a scan…" button. This is a bug in the app: please report it.');
+    },
     chooseToExportFont: async (name) => resolveWorkspaceFile(workspace, checkedFileName(requireName(name, 'exporting the font'), folderName, true, FONT_FILE), false, FONT_FILE),
   };
 }

@@ -57,7 +57,7 @@ export function browserHostFixture(): ProjectHostFixture {
 }
 
 /** Desktop mode: each dialog call takes the next scripted answer (null: the user cancelled). */
-export function desktopHostFixture(answers: { open: (string | null)[]; save: (string | null)[]; exportFont?: (string | null)[] }): ProjectHostFixture & { suggested: string[] } {
+export function desktopHostFixture(answers: { open: (string | null)[]; save: (string | null)[]; exportFont?: (string | null)[]; scan?: (string | null)[] }): ProjectHostFixture & { suggested: string[] } {
   const base = folders();
   const suggested: string[] = [];
   const places = dialogPlaces({
@@ -70,6 +70,7 @@ export function desktopHostFixture(answers: { open: (string | null)[]; save: (st
       suggested.push(name);
       return answers.exportFont?.shift() ?? null;
     },
+    showOpenScan: async () => answers.scan?.shift() ?? null,
   });
   return { ...withCall({ ...base, context: { host: 'electron', projects: projectAccess(places, base.untitledFolder), recent: new RecentProjects(recentProjectsPath(base.appFolder)), window: NO_WINDOW } }), suggested };
 }
