@@ -54,6 +54,7 @@ const browserHostApi: StemlineHostApi = {
   exportFont: (args) => postIntent('exportFont', args),
   listRecentProjects: (args) => postIntent('listRecentProjects', args),
   openRecentProject: (args) => postIntent('openRecentProject', args),
+  importScan: (args) => postIntent('importScan', args),
   reportProjectState: (args) => postIntent('reportProjectState', args),
   closeWindow: (args) => postIntent('closeWindow', args),
   // A browser tab has no application menu: nothing ever arrives.
