@@ -191,7 +191,13 @@ const electron = vi.hoisted(() => {
           webRequest: { onBeforeRequest: (handler: Listener) => (permission.beforeRequest = handler) },
         },
       },
-      shell: { openPath: async () => '', openExternal: record('shell.openExternal') },
+      shell: {
+        openPath: async (...args: unknown[]) => {
+          calls.push({ name: 'shell.openPath', args });
+          return '';
+        },
+        openExternal: record('shell.openExternal'),
+      },
     },
   };
 });
@@ -306,6 +312,16 @@ describe('the main process as wired to Electron', () => {
     expect(menu.map((m) => m.label)).toEqual(process.platform === 'darwin' ? ['Stemline', 'File', 'Edit', 'View', 'Help'] : ['File', 'Edit', 'View', 'Help']);
     const save = menu.find((m) => m.label === 'File')!.submenu.find((i) => i.label === 'Save')!;
     expect(save.registerAccelerator).toBe(false);
+  });
+
+  it('opens the user guide from the app’s own files, never an outside address (item 15: no shell.openExternal with untrusted content)', async () => {
+    const help = (electron.menus.at(-1) as { label: string; submenu: { label?: string; click?: () => void }[] }[]).find((m) => m.label === 'Help')!;
+    help.submenu.find((i) => i.label === 'Stemline user guide')!.click!();
+    await vi.waitFor(() => expect(electron.calls.filter((c) => c.name === 'shell.openPath')).toHaveLength(1));
+    expect(electron.calls.find((c) => c.name === 'shell.openPath')!.args).toEqual([join(appFolder, 'app', 'README.md')]);
+    expect(electron.calls.some((c) => c.name === 'shell.openExternal')).toBe(false);
+    const { readFileSync } = await import('node:fs');
+    expect(readFileSync(new URL('../../electron/main.ts', import.meta.url), 'utf8')).not.toMatch(/openExternal\(/);
   });
 
   it('keeps menu commands until the page is ready, then delivers them; titles the window from the page’s state', async () => {
