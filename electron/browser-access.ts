@@ -11,7 +11,7 @@
 //    users of the machine can reach the port but do not know the key.
 import { randomBytes, timingSafeEqual } from 'node:crypto';
 
-/** Random bytes in a run's key: 256 bits, beyond guessing (OWASP's minimum for session identifiers is 64 bits of entropy). */
+/** Random bytes in a run's key: 256 bits, far beyond guessing (OWASP's Session Management Cheat Sheet asks at least 64 bits of entropy; from memory). */
 const TOKEN_BYTES = 32;
 
 /** How a key is spelled: base64url of TOKEN_BYTES bytes (43 characters), or a key given to the host of at least 32 such characters. */

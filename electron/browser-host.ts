@@ -112,7 +112,7 @@ export async function startBrowserHost(rendererDir: string, port: number, places
       return;
     }
     if (verdict.path === '') {
-      // The key without its slash: the page's relative addresses need /KEY/.
+      // The key without its slash: the page's relative addresses need /KEY/ (308 Permanent Redirect, RFC 9110 §15.4.9).
       response.writeHead(308, { location: `/${token}/`, 'cache-control': 'no-store' });
       response.end();
       return;

@@ -44,6 +44,9 @@ const RENDERER_DIR = join(app.getAppPath(), 'build', 'renderer');
 const PRELOAD_PATH = join(import.meta.dirname, 'preload.cjs');
 const ICON_PATH = join(app.getAppPath(), 'electron', 'resources', 'icon.png');
 
+/** How far each further window opens down and right of the remembered place, in DIPs: a title bar's height, so each stays in reach (common practice). */
+const CASCADE_OFFSET = 32;
+
 /** Milliseconds a window rests after moving or resizing before its place is written (one write per drag, not one per pixel). */
 const WINDOW_STATE_WRITE_DELAY_MS = 500;
 
@@ -126,7 +129,7 @@ async function createWindow(): Promise<ShellWindow> {
   const displays = screen.getAllDisplays().map((d) => d.workArea);
   const saved = await readWindowState(windowStatePath(APP_FOLDER));
   // A second window opens beside the first rather than over it.
-  const cascade = windows.size === 0 || saved === null ? saved : { ...saved, x: (saved.x ?? 0) + 32 * windows.size, y: (saved.y ?? 0) + 32 * windows.size };
+  const cascade = windows.size === 0 || saved === null ? saved : { ...saved, x: (saved.x ?? 0) + CASCADE_OFFSET * windows.size, y: (saved.y ?? 0) + CASCADE_OFFSET * windows.size };
   const bounds = placeWindow(cascade, displays, screen.getPrimaryDisplay().workArea);
   const window = new BrowserWindow(windowOptions({ preloadPath: PRELOAD_PATH, title: APP_NAME, bounds, devTools: !app.isPackaged, icon: ICON_PATH }));
   const access = projectAccess(dialogsFor(window.webContents), untitledRecoveryFolder(APP_FOLDER));

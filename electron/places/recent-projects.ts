@@ -17,7 +17,11 @@ export const MAX_RECENT_PROJECTS = 10;
 /** Longest path kept: PATH_MAX on Linux (4096 bytes); longer ones are not a place a dialog answered. */
 export const MAX_RECENT_PATH_LENGTH = 4096;
 
-/** The largest list file read back: ten paths of the longest length with room for JSON. */
+/**
+ * The largest list file read back: the kept number of paths of the longest length,
+ * each with 64 bytes for its quotes, comma, indent and escapes, and 256 for the
+ * format and version fields around them.
+ */
 const MAX_RECENT_FILE_BYTES = MAX_RECENT_PROJECTS * (MAX_RECENT_PATH_LENGTH + 64) + 256;
 
 /** The file in the app's folder. */
