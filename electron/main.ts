@@ -341,7 +341,8 @@ function registerIntents(): void {
     ipcMain.handle(channelFor(intent), async (event, args: unknown) => {
       const frame = event.senderFrame;
       const entry = shellWindowOf(event.sender);
-      if (!isTrustedSender(frame ? { url: frame.url, isMainFrame: frame === event.sender.mainFrame } : null) || entry === undefined) {
+      // A frame without a parent is its window's top frame; an iframe has one.
+      if (!isTrustedSender(frame ? { url: frame.url, isMainFrame: frame.parent === null } : null) || entry === undefined) {
         return { error: { kind: 'forbidden', message: UNTRUSTED_SENDER_MESSAGE } };
       }
       try {

@@ -50,7 +50,7 @@ const electron = vi.hoisted(() => {
   class FakeContents extends Emitter {
     id = nextId++;
     sent: unknown[][] = [];
-    mainFrame = { url: '' };
+    mainFrame: { url: string; parent: unknown } = { url: '', parent: null };
     openHandler: ((details: { url: string }) => unknown) | null = null;
     send(...args: unknown[]) {
       this.sent.push(args);
@@ -233,7 +233,7 @@ function firstWindow(): FakeWindow {
 }
 
 /** An IPC call as Electron would deliver it from `frame` of `window`'s page. */
-function invoke(intent: string, args: unknown, window: FakeWindow, frame: { url: string } = window.webContents.mainFrame) {
+function invoke(intent: string, args: unknown, window: FakeWindow, frame: { url: string; parent: unknown } = window.webContents.mainFrame) {
   const handler = electron.handlers.get(channelFor(intent as never))!;
   return handler({ sender: window.webContents, senderFrame: frame }, args) as Promise<{ result?: unknown; error?: { kind: string } }>;
 }
@@ -299,10 +299,11 @@ describe('the main process as wired to Electron', () => {
     expect([...electron.handlers.keys()].sort()).toEqual(INTENT_NAMES.map(channelFor).sort());
     const window = firstWindow();
     expect(await invoke('appInfo', {}, window)).toMatchObject({ result: { name: 'Stemline', host: 'electron' } });
-    for (const frame of [{ url: 'https://example.com/' }, { url: APP_ENTRY_URL } /* an iframe: not the main frame object */, { url: 'file:///x/index.html' }]) {
+    const top = window.webContents.mainFrame;
+    for (const frame of [{ url: 'https://example.com/', parent: null }, { url: APP_ENTRY_URL, parent: top } /* an iframe of the app's page */, { url: 'file:///x/index.html', parent: null }]) {
       expect(await invoke('appInfo', {}, window, frame)).toMatchObject({ error: { kind: 'forbidden' } });
     }
-    const stranger = { sender: new electron.FakeContents(), senderFrame: { url: APP_ENTRY_URL } };
+    const stranger = { sender: new electron.FakeContents(), senderFrame: { url: APP_ENTRY_URL, parent: null } };
     stranger.sender.mainFrame = stranger.senderFrame;
     expect(await electron.handlers.get(channelFor('appInfo'))!(stranger, {})).toMatchObject({ error: { kind: 'forbidden' } });
   });
