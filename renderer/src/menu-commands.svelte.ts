@@ -13,7 +13,8 @@
 import { host, HostError } from './host-api.ts';
 import type { MenuCommand, MenuMessage, ProjectHandle, ProjectState } from '../../electron/api-contract.ts';
 import type { GlyphDocument, GlyphId, PointRef } from '../../core/document/index.ts';
-import { glyphOf } from '../../core/document/index.ts';
+import { deleteSelection, glyphOf, selectPoints } from '../../core/document/index.ts';
+import type { LetterEditing } from './editor/letter-editing.svelte.ts';
 
 /** What the page does for each command; App.svelte supplies these from its own actions. */
 export interface MenuActions {
@@ -25,10 +26,10 @@ export interface MenuActions {
   /** Opens a scan's file as if chosen in the page. */
   openScan(file: File): Promise<void>;
   exportFont(): Promise<void>;
-  undo(): void;
-  redo(): void;
-  selectAll(): void;
-  deleteSelection(): void;
+  /** The fitted letters' editing (undo and redo act on it), or null before any are fitted. */
+  editing(): LetterEditing | null;
+  /** The letter open in the one-letter editor (Select all and Delete act on its points), or null. */
+  openLetter(): GlyphId | null;
   toggleProof(): void;
 }
 
@@ -147,13 +148,22 @@ export class MenuCommands {
       case 'export-font':
         return a.exportFont();
       case 'undo':
-        return a.undo();
+        return a.editing()?.undo();
       case 'redo':
-        return a.redo();
-      case 'select-all':
-        return a.selectAll();
-      case 'delete-selection':
-        return a.deleteSelection();
+        return a.editing()?.redo();
+      case 'select-all': {
+        const editing = a.editing();
+        const id = a.openLetter();
+        if (editing && id !== null) editing.dispatch(selectPoints(editing.state.document, allPointsOf(editing.state.document, id), 'replace'));
+        return;
+      }
+      case 'delete-selection': {
+        const editing = a.editing();
+        // As the canvas's Delete key: the selected points go and their neighbours are refitted (core point-commands.ts).
+        const change = editing && a.openLetter() !== null ? deleteSelection(editing.state.document) : null;
+        if (editing && change) editing.dispatch(change);
+        return;
+      }
       case 'zoom-in':
         control(EDITOR_CONTROLS.zoomIn, HTMLButtonElement)?.click();
         return;
