@@ -87,6 +87,39 @@ export interface ProofFont {
   characters: string[];
 }
 
+/** A project the user opened or saved lately, as the renderer may show it: never its path. */
+export interface RecentProject {
+  /** The host's handle for the file, for openRecentProject. */
+  handle: ProjectHandle;
+  /** The project file's name, e.g. "harbour.stemline". */
+  name: string;
+  /** The name of the folder holding it (not its path), to tell projects of the same name apart. */
+  folderName: string;
+}
+
+/**
+ * What the window tells its host about its project, whenever it changes: the desktop
+ * shell titles the window with it, enables its menu items by it and asks before closing
+ * a window with unsaved changes.
+ */
+export interface ProjectState {
+  /** The project's title ("harbour", "Untitled project"). */
+  title: string;
+  /** Whether the window holds a project with something in it (a scan or letters). */
+  hasProject: boolean;
+  hasUnsavedChanges: boolean;
+  canUndo: boolean;
+  canRedo: boolean;
+}
+
+/** A scan the user chose in the host's dialog, for the page to decode and trace. */
+export interface ImportedScan {
+  /** The scan file's name, e.g. "sheet-1.png". */
+  name: string;
+  /** The file's bytes (carried as they are over the desktop app's IPC). */
+  bytes: Uint8Array;
+}
+
 /** Where an exported font was written. */
 export interface ExportedFont {
   /** The font file's name, e.g. "Harbour Signs.otf". */
@@ -153,14 +186,63 @@ export interface HostIntents {
   exportFont: { args: FontContent & { name?: string }; result: ExportedFont | null };
   /** The demo project to open when the window starts with no project; null where this host offers none. */
   openDemo: { args: Record<string, never>; result: DemoProject | null };
+  /** The projects the user opened or saved lately that this host can open again, most recent first. */
+  listRecentProjects: { args: Record<string, never>; result: { projects: RecentProject[] } };
+  /** Opens the project file `handle` names: one from listRecentProjects, or a file the system asked the app to open. */
+  openRecentProject: { args: { handle: ProjectHandle }; result: OpenedProject };
+  /** Desktop app: asks for a scan in the open dialog and returns its bytes. Null: the user cancelled. Browser mode refuses (the page takes scans itself). */
+  importScan: { args: Record<string, never>; result: ImportedScan | null };
+  /** The window's project state changed (title, unsaved changes, undo and redo). */
+  reportProjectState: { args: ProjectState; result: Record<string, never> };
+  /** Closes the window now, once its work is saved (after the close prompt's Save). False where the host has no window to close (browser mode). */
+  closeWindow: { args: Record<string, never>; result: { closed: boolean } };
 }
 
 export type IntentName = keyof HostIntents;
 
-/** The object the preload script exposes as `window.stemline`. */
-export type StemlineHostApi = {
+/** One function per intent. */
+export type HostIntentApi = {
   [K in IntentName]: (args: HostIntents[K]['args']) => Promise<HostIntents[K]['result']>;
 };
+
+/**
+ * The commands the desktop shell's menus send to the page, a closed set: each maps to
+ * one of the page's own actions (renderer/src/menu-commands.ts). 'save-and-close' is
+ * sent by the close prompt's Save button: the page saves, then asks to close.
+ */
+export const MENU_COMMANDS = [
+  'save-project',
+  'save-project-as',
+  'import-scans',
+  'export-font',
+  'undo',
+  'redo',
+  'select-all',
+  'delete-selection',
+  'zoom-in',
+  'zoom-out',
+  'toggle-combs',
+  'toggle-scan-backdrop',
+  'toggle-proof',
+  'save-and-close',
+] as const;
+
+export type MenuCommand = (typeof MENU_COMMANDS)[number];
+
+/** What the shell sends the page: a command, or a project to open (File ▸ Open recent, or a file the system handed the app). */
+export type MenuMessage = { command: MenuCommand } | { command: 'open-recent'; handle: ProjectHandle };
+
+/** The object the preload script exposes as `window.stemline`: the intents, and the one event of the shell's menus. */
+export type StemlineHostApi = HostIntentApi & {
+  /** Calls `listener` with each menu command; returns the function that stops listening. Browser mode has no menu: it never calls. */
+  onMenuCommand(listener: (message: MenuMessage) => void): () => void;
+};
+
+/** The events the preload exposes beside the intents. */
+export const BRIDGE_EVENT_NAMES = ['onMenuCommand'] as const satisfies readonly (keyof StemlineHostApi)[];
+
+/** The channel the shell's menu commands travel on. */
+export const MENU_COMMAND_CHANNEL = 'stemline:menu-command';
 
 /** Names of every intent, in one list both hosts and the preload agree on. */
 export const INTENT_NAMES = [
@@ -175,6 +257,11 @@ export const INTENT_NAMES = [
   'buildProofFont',
   'exportFont',
   'openDemo',
+  'listRecentProjects',
+  'openRecentProject',
+  'importScan',
+  'reportProjectState',
+  'closeWindow',
 ] as const satisfies readonly IntentName[];
 
 /** The IPC channel an intent travels on in the Electron shell. */

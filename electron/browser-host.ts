@@ -3,15 +3,22 @@
 // shell uses. It lets the app run where no Electron binary is installed, and lets
 // Playwright drive the real UI against the real handlers. Projects are read and
 // written only inside its workspace folder, named when it starts (the page has no
-// native file dialog: it lists the workspace's projects itself).
+// native file dialog: it lists the workspace's projects itself). Only this machine,
+// only the page's own origin, and only holders of the run's key are answered
+// (browser-access.ts); every file carries the page's Content-Security-Policy.
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import { readFile, stat } from 'node:fs/promises';
-import { extname, join, normalize, resolve, sep } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { invokeHandler } from './handlers.ts';
 import { HandlerError } from './handler-error.ts';
 import { projectAccess, type HostContext } from './host-context.ts';
 import { realWorkspace, workspacePlaces } from './places/workspace-places.ts';
-import { untitledRecoveryFolder } from './places/app-data-folder.ts';
+import { appDataFolder, untitledRecoveryFolder } from './places/app-data-folder.ts';
+import { RecentProjects, recentProjectsPath } from './places/recent-projects.ts';
+import { NO_WINDOW } from './host-context.ts';
+import { checkAccess, newRunToken, TOKEN_PATTERN } from './browser-access.ts';
+import { contentTypeOf, rendererFileFor } from './renderer-files.ts';
+import { pageSecurityHeaders } from './shell/content-security-policy.ts';
 import type { IntentName } from './api-contract.ts';
 import { MAX_FONT_ARGUMENT_CHARACTERS } from './font-arguments.ts';
 
@@ -46,10 +53,17 @@ function bodyLimitFor(intent: string): number {
 export interface BrowserHostPlaces {
   /** The workspace folder: the only folder projects are opened from and saved to. */
   workspace: string;
-  /** Where the autosaved copies of projects never saved go; default the per-user app folder's (app-data-folder.ts). */
+  /**
+   * The host's per-user folder (the recent projects; the recovery copies unless `untitledFolder`
+   * says otherwise). Default: the folder holding `untitledFolder` when that is given, else app-data-folder.ts's.
+   */
+  appFolder?: string;
+  /** Where the autosaved copies of projects never saved go; default the app folder's (app-data-folder.ts). */
   untitledFolder?: string;
   /** The demo's sheets: absent, the ones shipped with Stemline; null, no demo (the window starts on an empty project). */
   demoFolder?: string | null;
+  /** The run's key; default a new random one. Tests and the browser-test harness pass their own. */
+  token?: string;
 }
 
 /** A request body over its limit. */
@@ -59,21 +73,14 @@ class BodyTooLarge extends Error {
   }
 }
 
-const CONTENT_TYPES: Record<string, string> = {
-  '.html': 'text/html; charset=utf-8',
-  '.js': 'text/javascript; charset=utf-8',
-  '.css': 'text/css; charset=utf-8',
-  '.svg': 'image/svg+xml',
-  '.png': 'image/png',
-  '.json': 'application/json',
-  '.woff2': 'font/woff2',
-  '.otf': 'font/otf',
-  '.ico': 'image/x-icon',
-};
-
 export interface BrowserHost {
   server: Server;
+  /** The page's address, key included: http://127.0.0.1:PORT/KEY/ */
   url: string;
+  /** The address without the key (requests to it need the key in a header). */
+  origin: string;
+  /** The run's key. */
+  token: string;
   close(): Promise<void>;
 }
 
@@ -87,13 +94,33 @@ export async function startBrowserHost(rendererDir: string, port: number, places
   const root = resolve(rendererDir);
   await assertRendererBuilt(root);
   const workspace = await realWorkspace(places.workspace);
+  const token = places.token ?? newRunToken();
+  if (!TOKEN_PATTERN.test(token)) throw new Error('The browser host\'s key must be 32 to 128 letters, digits, "-" or "_". Leave it unset to get a random one.');
+  const appFolder = resolve(places.appFolder ?? (places.untitledFolder === undefined ? appDataFolder() : dirname(resolve(places.untitledFolder))));
   const context: HostContext = {
     host: 'browser',
-    projects: projectAccess(workspacePlaces(workspace), resolve(places.untitledFolder ?? untitledRecoveryFolder())),
+    projects: projectAccess(workspacePlaces(workspace), resolve(places.untitledFolder ?? untitledRecoveryFolder(appFolder))),
     ...(places.demoFolder === undefined ? {} : { demoFolder: places.demoFolder }),
+    recent: new RecentProjects(recentProjectsPath(appFolder)),
+    window: NO_WINDOW,
   };
+  let authority = '';
   const server = createServer((request, response) => {
-    route(root, context, request, response).catch((error: unknown) => {
+    const verdict = checkAccess({ url: request.url ?? '/', headers: request.headers }, authority, token);
+    if (!verdict.allowed) {
+      request.resume();
+      // A page asked for by a browser gets the message as text, an intent as the renderer's error.
+      if (request.method === 'GET' || request.method === 'HEAD') sendText(response, verdict.status, verdict.message);
+      else sendJson(response, verdict.status, { error: { kind: 'forbidden', message: verdict.message } });
+      return;
+    }
+    if (verdict.path === '') {
+      // The key without its slash: the page's relative addresses need /KEY/ (308 Permanent Redirect, RFC 9110 §15.4.9).
+      response.writeHead(308, { location: `/${token}/`, 'cache-control': 'no-store' });
+      response.end();
+      return;
+    }
+    route(root, context, verdict.path, request, response).catch((error: unknown) => {
       sendJson(response, 500, { error: { kind: 'internal', message: `The host failed: ${String(error)}` } });
     });
   });
@@ -103,9 +130,12 @@ export async function startBrowserHost(rendererDir: string, port: number, places
   });
   const address = server.address();
   const boundPort = typeof address === 'object' && address ? address.port : port;
+  authority = `${LOOPBACK_ADDRESS}:${boundPort}`;
   return {
     server,
-    url: `http://${LOOPBACK_ADDRESS}:${boundPort}/`,
+    url: `http://${authority}/${token}/`,
+    origin: `http://${authority}/`,
+    token,
     close: () => new Promise((done) => server.close(() => done())),
   };
 }
@@ -118,17 +148,17 @@ async function assertRendererBuilt(root: string): Promise<void> {
   }
 }
 
-async function route(root: string, context: HostContext, request: IncomingMessage, response: ServerResponse): Promise<void> {
-  const url = new URL(request.url ?? '/', `http://${LOOPBACK_ADDRESS}`);
-  if (url.pathname.startsWith('/api/')) {
-    await answerIntent(url.pathname.slice('/api/'.length), context, request, response);
+/** Serves `path` (the request path, the run's key taken off). */
+async function route(root: string, context: HostContext, path: string, request: IncomingMessage, response: ServerResponse): Promise<void> {
+  if (path.startsWith('/api/')) {
+    await answerIntent(path.slice('/api/'.length), context, request, response);
     return;
   }
   if (request.method !== 'GET' && request.method !== 'HEAD') {
     sendJson(response, 405, { error: { kind: 'method', message: 'Only GET is served here.' } });
     return;
   }
-  await serveFile(root, url.pathname, response);
+  await serveFile(root, path, response);
 }
 
 async function answerIntent(intent: string, context: HostContext, request: IncomingMessage, response: ServerResponse): Promise<void> {
@@ -182,26 +212,26 @@ function readBody(request: IncomingMessage, limit: number): Promise<string> {
 }
 
 async function serveFile(root: string, pathname: string, response: ServerResponse): Promise<void> {
-  const relative = pathname === '/' ? 'index.html' : decodeURIComponent(pathname).replace(/^\/+/, '');
-  const filePath = normalize(join(root, relative));
-  if (filePath !== root && !filePath.startsWith(root + sep)) {
+  const filePath = rendererFileFor(root, pathname);
+  if (filePath === null) {
     sendJson(response, 403, { error: { kind: 'forbidden', message: 'Outside the app.' } });
     return;
   }
   try {
     const body = await readFile(filePath);
-    response.writeHead(200, {
-      'content-type': CONTENT_TYPES[extname(filePath)] ?? 'application/octet-stream',
-      'cache-control': 'no-store',
-      'x-content-type-options': 'nosniff',
-    });
+    response.writeHead(200, { ...pageSecurityHeaders(), 'content-type': contentTypeOf(filePath), 'cache-control': 'no-store' });
     response.end(body);
   } catch {
     sendJson(response, 404, { error: { kind: 'not-found', message: `No such file: ${pathname}` } });
   }
 }
 
+function sendText(response: ServerResponse, status: number, message: string): void {
+  response.writeHead(status, { ...pageSecurityHeaders(), 'content-type': 'text/plain; charset=utf-8', 'cache-control': 'no-store' });
+  response.end(`${message}\n`);
+}
+
 function sendJson(response: ServerResponse, status: number, body: unknown): void {
-  response.writeHead(status, { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store' });
+  response.writeHead(status, { ...pageSecurityHeaders(), 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store' });
   response.end(JSON.stringify(body));
 }

@@ -10,7 +10,9 @@ import { projectArguments } from './project-arguments.ts';
 import { fontArguments } from './font-arguments.ts';
 import { buildProofFont, exportFont } from './font-handlers.ts';
 import { openDemo } from './demo-handlers.ts';
-import { autosaveProject, discardRecoveredWork, findRecoveredWork, listProjects, openProject, saveProject, saveProjectAs } from './project-handlers.ts';
+import { autosaveProject, discardRecoveredWork, findRecoveredWork, listProjects, listRecentProjects, openProject, openRecentProject, saveProject, saveProjectAs } from './project-handlers.ts';
+import { closeWindow, projectStateArguments, reportProjectState } from './window-handlers.ts';
+import { importScan } from './scan-import-handler.ts';
 
 export type { HostContext } from './host-context.ts';
 
@@ -37,6 +39,11 @@ const HANDLERS: HandlerTable = {
   buildProofFont,
   exportFont,
   openDemo,
+  listRecentProjects,
+  openRecentProject,
+  importScan,
+  reportProjectState,
+  closeWindow,
 };
 
 /** Argument checks per intent; each returns the validated arguments or throws. */
@@ -52,6 +59,11 @@ const VALIDATORS: { [K in IntentName]: (raw: unknown) => HostIntents[K]['args'] 
   buildProofFont: (raw) => fontArguments('buildProofFont', raw),
   exportFont: (raw) => fontArguments('exportFont', raw),
   openDemo: (raw) => expectEmptyObject('openDemo', raw),
+  listRecentProjects: (raw) => expectEmptyObject('listRecentProjects', raw),
+  openRecentProject: (raw) => projectArguments('openRecentProject', raw),
+  importScan: (raw) => expectEmptyObject('importScan', raw),
+  reportProjectState: (raw) => projectStateArguments(raw),
+  closeWindow: (raw) => expectEmptyObject('closeWindow', raw),
 };
 
 function expectEmptyObject(intent: string, raw: unknown): Record<string, never> {

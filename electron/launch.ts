@@ -2,7 +2,8 @@
 // where no Electron binary is installed, says so in one line and serves the same
 // renderer and handlers in the browser on 127.0.0.1, keeping projects in a workspace
 // folder: the one named on the command line (`npm start -- ~/lettering`), or else the
-// directory `npm start` was run from.
+// directory `npm start` was run from. The address printed carries the run's key
+// (browser-access.ts): only a browser given that address is answered.
 import { spawn, spawnSync } from 'node:child_process';
 import { join, resolve } from 'node:path';
 import { build } from 'vite';
@@ -36,7 +37,7 @@ async function main(): Promise<void> {
   console.log(`Electron is not available here (${electron.reason}); serving Stemline in the browser instead.`);
   const workspace = workspaceFolder();
   const host = await startOnFreePort(Number(process.env.STEMLINE_PORT ?? DEFAULT_BROWSER_PORT), workspace);
-  console.log(`Stemline is running at ${host.url}  (open it in Chromium, Firefox or another browser; Ctrl+C stops it)`);
+  console.log(`Stemline is running at ${host.url}  (open this address, key included, in Chromium, Firefox or another browser on this computer; Ctrl+C stops it)`);
   console.log(`Projects are opened from and saved to ${workspace}`);
 }
 

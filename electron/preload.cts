@@ -1,11 +1,14 @@
-// The preload script: exposes `window.stemline`, one function per user intent and
-// nothing else (never raw IPC). Sandboxed preloads can require only 'electron' and
-// have no module system, so this file stays a plain script: the intent names are
-// repeated here and the `satisfies` check keeps them in step with the contract
-// (api-contract.ts) at compile time.
+// The preload script: exposes `window.stemline`, one function per user intent and one
+// event (the shell's menu commands), and nothing else — never ipcRenderer itself, never
+// a generic send, and never an IPC event object (which would hand the page the sender).
+// Sandboxed preloads can require only 'electron' and have no module system, so this
+// file stays a plain script: the intent names and channels are repeated here and the
+// `satisfies` check keeps them in step with the contract (api-contract.ts) at compile
+// time; test/electron/preload.test.ts checks the exposed names are exactly the contract's.
 const { contextBridge, ipcRenderer } = require('electron') as typeof import('electron');
 
 type IntentName = import('./api-contract.ts').IntentName;
+type MenuMessage = import('./api-contract.ts').MenuMessage;
 
 interface HostReply {
   result?: unknown;
@@ -20,6 +23,15 @@ function callHost(intent: IntentName, args: unknown): Promise<never> {
   });
 }
 
+/** Passes each menu command to `listener`, the message alone; returns the function that stops it. */
+function onMenuCommand(listener: (message: MenuMessage) => void): () => void {
+  const relay = (_event: unknown, message: MenuMessage) => listener(message);
+  ipcRenderer.on('stemline:menu-command', relay);
+  return () => {
+    ipcRenderer.removeListener('stemline:menu-command', relay);
+  };
+}
+
 const stemlineHostApi = {
   appInfo: (args) => callHost('appInfo', args),
   listProjects: (args) => callHost('listProjects', args),
@@ -32,6 +44,12 @@ const stemlineHostApi = {
   buildProofFont: (args) => callHost('buildProofFont', args),
   exportFont: (args) => callHost('exportFont', args),
   openDemo: (args) => callHost('openDemo', args),
+  listRecentProjects: (args) => callHost('listRecentProjects', args),
+  openRecentProject: (args) => callHost('openRecentProject', args),
+  importScan: (args) => callHost('importScan', args),
+  reportProjectState: (args) => callHost('reportProjectState', args),
+  closeWindow: (args) => callHost('closeWindow', args),
+  onMenuCommand,
 } satisfies import('./api-contract.ts').StemlineHostApi;
 
 contextBridge.exposeInMainWorld('stemline', stemlineHostApi);

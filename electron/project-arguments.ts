@@ -24,6 +24,7 @@ const SCHEMAS = {
   autosaveProject: v.strictObject({ handle: v.optional(handleSchema), project: projectPlaceholder }),
   findRecoveredWork: v.strictObject({ handle: v.optional(handleSchema) }),
   discardRecoveredWork: v.strictObject({ handle: handleSchema }),
+  openRecentProject: v.strictObject({ handle: handleSchema }),
 };
 
 type ProjectIntent = keyof typeof SCHEMAS;

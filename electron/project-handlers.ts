@@ -1,11 +1,12 @@
-// The project intents' handlers: list, open, save, save as, autosave, and find or
-// discard recovered work. Plain functions over the host's ProjectAccess, so both
+// The project intents' handlers: list, open, save, save as, autosave, find or
+// discard recovered work, and the recent projects (each file opened or saved is put
+// first on the list; a recent file is reopened through the handle the host gives it). Plain functions over the host's ProjectAccess, so both
 // hosts and the tests run the same code. Paths come only from the host's places (a
 // dialog the user answered, or the browser workspace) and from the handles given for
 // them; a project's scans are read from its own folder or its embedded copies.
-import { mkdir, readdir, unlink } from 'node:fs/promises';
-import { basename, join } from 'node:path';
-import type { HostIntents, OpenedProject, ProjectHandle, ProjectListing, RecoveredWork, SavedProject } from './api-contract.ts';
+import { mkdir, readdir, stat, unlink } from 'node:fs/promises';
+import { basename, dirname, join } from 'node:path';
+import type { HostIntents, OpenedProject, ProjectHandle, ProjectListing, RecentProject, RecoveredWork, SavedProject } from './api-contract.ts';
 import type { HostContext } from './host-context.ts';
 import { HandlerError } from './handler-error.ts';
 import { fileFailure } from './file-failure.ts';
@@ -66,6 +67,11 @@ export async function listProjects(_args: Args<'listProjects'>, context: HostCon
 export async function openProject(args: Args<'openProject'>, context: HostContext): Promise<OpenedProject | null> {
   const path = await chosen(() => context.projects.places.chooseToOpen(args.name), 'open');
   if (path === null) return null;
+  return openAt(path, context);
+}
+
+/** Reads the project at `path` (a place the user chose), remembers it and puts it first among the recent projects. */
+async function openAt(path: string, context: HostContext): Promise<OpenedProject> {
   const name = basename(path);
   let project: ProjectData;
   try {
@@ -74,7 +80,35 @@ export async function openProject(args: Args<'openProject'>, context: HostContex
     throw fileFailure(error, 'open', name);
   }
   project = await withScanBytes(path, project, 'open');
+  await context.recent.add(path);
   return { handle: context.projects.handles.remember({ kind: 'file', path }), name, project };
+}
+
+export async function listRecentProjects(_args: Args<'listRecentProjects'>, context: HostContext): Promise<{ projects: RecentProject[] }> {
+  const projects: RecentProject[] = [];
+  for (const path of await context.recent.list()) {
+    if (!(await context.projects.places.mayReopen(path))) continue;
+    const info = await stat(path).catch(() => null);
+    if (info === null || !info.isFile()) continue; // moved, deleted or on a drive not attached now: not offered, but kept
+    projects.push({ handle: context.projects.handles.remember({ kind: 'file', path }), name: basename(path), folderName: basename(dirname(path)) });
+  }
+  return { projects };
+}
+
+export async function openRecentProject(args: Args<'openRecentProject'>, context: HostContext): Promise<OpenedProject> {
+  const place = context.projects.handles.place(args.handle);
+  if (place.kind !== 'file') {
+    throw new HandlerError('bad-arguments', 'This project has not been saved to a file yet, so it cannot be opened from the recent list. This is a bug in the app: please report it.');
+  }
+  if (!(await context.projects.places.mayReopen(place.path))) {
+    throw new HandlerError('path-refused', `${basename(place.path)} is not in the workspace folder, so it cannot be opened here. Use Open… to choose a project of the workspace.`);
+  }
+  const info = await stat(place.path).catch(() => null);
+  if (info === null || !info.isFile()) {
+    await context.recent.remove(place.path);
+    throw new HandlerError('project-file', `${basename(place.path)} is no longer in the folder “${basename(dirname(place.path))}” (it was moved, renamed or deleted), so it was taken off the recent projects. Use Open… to find it.`);
+  }
+  return openAt(place.path, context);
 }
 
 export async function saveProject(args: Args<'saveProject'>, context: HostContext): Promise<SavedProject> {
@@ -100,6 +134,7 @@ export async function saveProjectAs(args: Args<'saveProjectAs'>, context: HostCo
   } catch (error) {
     throw fileFailure(error, 'save', name);
   }
+  await context.recent.add(path);
   // The work now lives in the new file: the autosaved copy of where it came from is superseded.
   const previous = args.replacing === undefined ? undefined : context.projects.handles.find(args.replacing);
   if (previous !== undefined && previous.path !== path) await removeRecovery(previous.path).catch(() => false);

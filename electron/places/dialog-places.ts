@@ -1,5 +1,5 @@
 // The desktop app's project places: the operating system's open and save dialogs
-// (a save dialog of its own for exporting the font).
+// (a save dialog of its own for exporting the font, an open dialog for importing a scan).
 // The dialogs themselves are passed in (electron/main.ts wires Electron's `dialog`),
 // so this logic runs and is tested in plain Node. A file name sent by the page is
 // refused: in the desktop app only a dialog the user answered names a file.
@@ -16,6 +16,8 @@ export interface ProjectDialogs {
   showSave(suggestedName: string): Promise<string | null>;
   /** The save dialog for exporting the font (its file-type filter: OpenType fonts). */
   showExportFont(suggestedName: string): Promise<string | null>;
+  /** The open dialog for a scan (its file-type filter: the image types Stemline reads). */
+  showOpenScan(): Promise<string | null>;
 }
 
 export function dialogPlaces(dialogs: ProjectDialogs): ProjectPlaces {
@@ -30,6 +32,8 @@ export function dialogPlaces(dialogs: ProjectDialogs): ProjectPlaces {
   };
   return {
     list: async () => ({ kind: 'dialog' }),
+    mayReopen: async (path) => isAbsolute(path) && hasProjectExtension(path),
+    chooseScanToImport: async () => answered(await dialogs.showOpenScan()),
     chooseToOpen: async (name) => {
       refuseName(name);
       return answered(await dialogs.showOpen());

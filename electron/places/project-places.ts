@@ -26,4 +26,16 @@ export interface ProjectPlaces {
    * offered in a dialog.
    */
   chooseToExportFont(name: string | undefined, suggestedName: string): Promise<string | null>;
+  /**
+   * Whether the project file at `path` (one the user chose earlier: the recent list)
+   * may be opened again in this host: any such file in the desktop app, only one
+   * directly inside the workspace in browser mode.
+   */
+  mayReopen(path: string): Promise<boolean>;
+  /**
+   * The absolute path of the scan the user chose to import (File ▸ Import scans… in the
+   * desktop app), or null when they cancelled. Browser mode has no such dialog: the page
+   * takes scans itself, and this throws HandlerError 'path-refused'.
+   */
+  chooseScanToImport(): Promise<string | null>;
 }

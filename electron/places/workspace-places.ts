@@ -4,7 +4,7 @@
 // resolved inside the folder (workspace-files.ts); fonts are exported there too, under
 // a name the page chooses. There are no other places.
 import { realpath, stat } from 'node:fs/promises';
-import { basename } from 'node:path';
+import { basename, dirname } from 'node:path';
 import { HandlerError } from '../handler-error.ts';
 import type { ProjectPlaces } from './project-places.ts';
 import { checkedFileName, checkedProjectName, listWorkspaceProjects, resolveWorkspaceFile, type WorkspaceFileKind } from './workspace-files.ts';
@@ -36,6 +36,19 @@ export function workspacePlaces(workspace: string): ProjectPlaces {
     list: async () => ({ kind: 'workspace', folderName, projects: await listWorkspaceProjects(workspace) }),
     chooseToOpen: async (name) => resolveWorkspaceFile(workspace, checkedProjectName(requireName(name, 'opening a project'), folderName, false), true),
     chooseToSave: async (name) => resolveWorkspaceFile(workspace, checkedProjectName(requireName(name, 'saving a project'), folderName, true), false),
+    mayReopen: async (path) => {
+      if (dirname(path) !== workspace) return false;
+      try {
+        checkedProjectName(basename(path), folderName, false);
+        await resolveWorkspaceFile(workspace, basename(path), false);
+        return true;
+      } catch {
+        return false;
+      }
+    },
+    chooseScanToImport: async () => {
+      throw new HandlerError('path-refused', 'In the browser, scans are chosen in the page: use its "Open a scan…" button. This is a bug in the app: please report it.');
+    },
     chooseToExportFont: async (name) => resolveWorkspaceFile(workspace, checkedFileName(requireName(name, 'exporting the font'), folderName, true, FONT_FILE), false, FONT_FILE),
   };
 }

@@ -53,6 +53,13 @@ const browserHostApi: StemlineHostApi = {
   buildProofFont: (args) => postIntent('buildProofFont', args),
   exportFont: (args) => postIntent('exportFont', args),
   openDemo: (args) => postIntent('openDemo', args),
+  listRecentProjects: (args) => postIntent('listRecentProjects', args),
+  openRecentProject: (args) => postIntent('openRecentProject', args),
+  importScan: (args) => postIntent('importScan', args),
+  reportProjectState: (args) => postIntent('reportProjectState', args),
+  closeWindow: (args) => postIntent('closeWindow', args),
+  // A browser tab has no application menu: nothing ever arrives.
+  onMenuCommand: () => () => undefined,
 };
 
 /** The host API for this window: the preload bridge in Electron, HTTP in a browser. */

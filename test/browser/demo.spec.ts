@@ -30,10 +30,14 @@ test.describe('the demo project', () => {
   test.setTimeout(DEMO_OPEN_TIMEOUT_MS + 30_000);
 
   let host: BrowserHost;
+  // Every request carries the run's key in its header (playwright.config.ts), so the page is the host's root.
+  const appRoot = (h: BrowserHost): string => `${new URL(h.url).origin}/`;
   test.beforeAll(async () => {
     const folder = mkdtempSync(join(tmpdir(), 'stemline-demo-host-'));
-    // Port 0: a free port, so this host never meets another run's.
-    host = await startBrowserHost(RENDERER_BUILD_DIR, 0, { workspace: folder, untitledFolder: join(folder, 'recovery') });
+    // Port 0: a free port, so this host never meets another run's. The run's key, which
+    // every request of the suite carries (playwright.config.ts), is this host's key too.
+    const token = process.env.STEMLINE_BROWSER_TOKEN;
+    host = await startBrowserHost(RENDERER_BUILD_DIR, 0, { workspace: folder, untitledFolder: join(folder, 'recovery'), ...(token ? { token } : {}) });
   });
   test.afterAll(async () => {
     await host.close();
@@ -44,7 +48,7 @@ test.describe('the demo project', () => {
     const expected = splitCharacters(manifest.sheets[0]!.characters);
     const problems: string[] = [];
     page.on('pageerror', (error) => problems.push(error.message));
-    await page.goto(host.url);
+    await page.goto(appRoot(host));
     await expect(page.getByTestId('demo-banner')).toContainText(manifest.title);
     await expect(page.getByRole('button', { name: 'Start a new project from your own scans' })).toBeVisible();
     await expect(page.getByRole('heading', { name: 'Letters at a glance' })).toBeVisible({ timeout: DEMO_OPEN_TIMEOUT_MS });
@@ -65,7 +69,7 @@ test.describe('the demo project', () => {
   });
 
   test('starts a new, empty project from the demo, where a scan of one’s own opens', async ({ page }) => {
-    await page.goto(host.url);
+    await page.goto(appRoot(host));
     await expect(page.getByRole('heading', { name: 'Letters at a glance' })).toBeVisible({ timeout: DEMO_OPEN_TIMEOUT_MS });
     await page.getByRole('button', { name: 'Start a new project from your own scans' }).click();
     await expect(page.getByRole('heading', { level: 1 })).toHaveText('Untitled project');
@@ -78,7 +82,7 @@ test.describe('the demo project', () => {
   });
 
   test('starts a new project at once while the demo is still opening, and the demo does not come back', async ({ page }) => {
-    await page.goto(host.url);
+    await page.goto(appRoot(host));
     await expect(page.getByTestId('trace-progress')).toBeVisible();
     await page.getByRole('button', { name: 'Start a new project from your own scans' }).click();
     await expect(page.getByTestId('empty-note')).toBeVisible();

@@ -1,12 +1,14 @@
 // A project host for the handler tests: real folders in a fresh temporary directory —
 // a workspace, a folder outside it holding a file that must never be reached, and the
 // host's own folder for projects never saved — with the browser host's project access
-// (workspace places) or the desktop's (dialog places answering what the test scripts).
+// (workspace places) or the desktop's (dialog places answering what the test scripts),
+// and the host's own folder for its recent projects.
 import { mkdtempSync, mkdirSync, realpathSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { invokeHandler, type HostContext } from '../../electron/handlers.ts';
-import { projectAccess } from '../../electron/host-context.ts';
+import { NO_WINDOW, projectAccess } from '../../electron/host-context.ts';
+import { RecentProjects, recentProjectsPath } from '../../electron/places/recent-projects.ts';
 import { workspacePlaces } from '../../electron/places/workspace-places.ts';
 import { dialogPlaces } from '../../electron/places/dialog-places.ts';
 import { newProject } from '../../electron/io/project/new-project.ts';
@@ -22,6 +24,8 @@ export interface ProjectHostFixture {
   outside: string;
   secret: string;
   untitledFolder: string;
+  /** The host's per-user folder (recent projects). */
+  appFolder: string;
   context: HostContext;
   call<K extends IntentName>(intent: K, args: unknown): Promise<HostIntents[K]['result']>;
 }
@@ -33,12 +37,13 @@ function folders(): Omit<ProjectHostFixture, 'context' | 'call'> {
   const root = realpathSync(mkdtempSync(join(tmpdir(), 'stemline-handlers-')));
   const workspace = join(root, 'workspace');
   const outside = join(root, 'outside');
-  const untitledFolder = join(root, 'app-data', 'Recovery');
+  const appFolder = join(root, 'app-data');
+  const untitledFolder = join(appFolder, 'Recovery');
   mkdirSync(workspace);
   mkdirSync(outside);
   const secret = join(outside, 'secret.stemline');
   writeFileSync(secret, SECRET_TEXT);
-  return { root, workspace, outside, secret, untitledFolder };
+  return { root, workspace, outside, secret, untitledFolder, appFolder };
 }
 
 function withCall(base: Omit<ProjectHostFixture, 'call'>): ProjectHostFixture {
@@ -48,11 +53,11 @@ function withCall(base: Omit<ProjectHostFixture, 'call'>): ProjectHostFixture {
 /** Browser mode: projects by name inside `workspace`. */
 export function browserHostFixture(): ProjectHostFixture {
   const base = folders();
-  return withCall({ ...base, context: { host: 'browser', projects: projectAccess(workspacePlaces(base.workspace), base.untitledFolder) } });
+  return withCall({ ...base, context: { host: 'browser', projects: projectAccess(workspacePlaces(base.workspace), base.untitledFolder), recent: new RecentProjects(recentProjectsPath(base.appFolder)), window: NO_WINDOW } });
 }
 
 /** Desktop mode: each dialog call takes the next scripted answer (null: the user cancelled). */
-export function desktopHostFixture(answers: { open: (string | null)[]; save: (string | null)[]; exportFont?: (string | null)[] }): ProjectHostFixture & { suggested: string[] } {
+export function desktopHostFixture(answers: { open: (string | null)[]; save: (string | null)[]; exportFont?: (string | null)[]; scan?: (string | null)[] }): ProjectHostFixture & { suggested: string[] } {
   const base = folders();
   const suggested: string[] = [];
   const places = dialogPlaces({
@@ -65,8 +70,9 @@ export function desktopHostFixture(answers: { open: (string | null)[]; save: (st
       suggested.push(name);
       return answers.exportFont?.shift() ?? null;
     },
+    showOpenScan: async () => answers.scan?.shift() ?? null,
   });
-  return { ...withCall({ ...base, context: { host: 'electron', projects: projectAccess(places, base.untitledFolder) } }), suggested };
+  return { ...withCall({ ...base, context: { host: 'electron', projects: projectAccess(places, base.untitledFolder), recent: new RecentProjects(recentProjectsPath(base.appFolder)), window: NO_WINDOW } }), suggested };
 }
 
 /** Bytes standing in for a scan: the handlers only move them, never decode them. */

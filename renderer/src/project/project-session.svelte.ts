@@ -170,12 +170,21 @@ export class ProjectSession {
    * the host holds autosaved work newer than the file, the user is asked which to keep.
    */
   async openNamed(name: string | undefined): Promise<void> {
+    await this.openWith(() => host.openProject(name === undefined ? {} : { name }));
+  }
+
+  /** Opens the project file `handle` names (File ▸ Open recent, or a file the system handed the desktop app), as openNamed does. */
+  async openRecent(handle: ProjectHandle): Promise<void> {
+    await this.openWith(() => host.openRecentProject({ handle }));
+  }
+
+  private async openWith(open: () => Promise<OpenedProject | null>): Promise<void> {
     this.chooser = null;
     this.problem = null;
     await this.autosaveNow();
     this.busy = 'opening';
     try {
-      const opened = await host.openProject(name === undefined ? {} : { name });
+      const opened = await open();
       if (opened === null) return;
       const work = await host.findRecoveredWork({ handle: opened.handle });
       if (work) {

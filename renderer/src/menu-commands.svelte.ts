@@ -1,0 +1,192 @@
+// The desktop shell's menu commands in the page: each command of the closed set
+// (api-contract.ts MENU_COMMANDS) runs the page's own action — save, save as, undo,
+// the proof, the export — exactly as the page's buttons and keys do; and the page
+// tells its host its project's state whenever that changes, so the shell can title
+// the window, enable its menus and ask before closing unsaved work. A command that
+// edits (undo, redo, select all, delete) acts on a focused text field instead when
+// one is focused, as a menu's Edit commands do everywhere. Browser mode has no menu:
+// nothing arrives there, and the state reports are simply taken.
+//
+// The one-letter editor keeps its zoom, comb and scan settings inside its own
+// controls, so the View commands work those controls (found by their accessible
+// names, the same ones the browser tests use); they do nothing while no letter is open.
+import { host, HostError } from './host-api.ts';
+import type { MenuCommand, MenuMessage, ProjectHandle, ProjectState } from '../../electron/api-contract.ts';
+import type { GlyphDocument, GlyphId, PointRef } from '../../core/document/index.ts';
+import { deleteSelection, glyphOf, selectPoints } from '../../core/document/index.ts';
+import type { LetterEditing } from './editor/letter-editing.svelte.ts';
+
+/** What the page does for each command; App.svelte supplies these from its own actions. */
+export interface MenuActions {
+  save(): Promise<void>;
+  saveAs(): Promise<void>;
+  /** Whether the window still has unsaved changes (after a save: whether it failed or was cancelled). */
+  isDirty(): boolean;
+  openRecent(handle: ProjectHandle): Promise<void>;
+  /** Opens a scan's file as if chosen in the page. */
+  openScan(file: File): Promise<void>;
+  exportFont(): Promise<void>;
+  /** The fitted letters' editing (undo and redo act on it), or null before any are fitted. */
+  editing(): LetterEditing | null;
+  /** The letter open in the one-letter editor (Select all and Delete act on its points), or null. */
+  openLetter(): GlyphId | null;
+  toggleProof(): void;
+}
+
+/** The editor controls the View commands work, by accessible name (renderer/src/screens/OneLetter.svelte). */
+export const EDITOR_CONTROLS = {
+  zoomIn: 'Zoom in',
+  zoomOut: 'Zoom out',
+  combLength: 'Comb length',
+  scanOpacity: 'Scan opacity',
+} as const;
+
+/** The Edit commands a focused text field answers itself, and the editing command each stands for. */
+const TEXT_FIELD_COMMANDS: Partial<Record<MenuCommand, string>> = {
+  undo: 'undo',
+  redo: 'redo',
+  'select-all': 'selectAll',
+  'delete-selection': 'delete',
+};
+
+/** Input types whose value is text a user edits (a range or a checkbox is not). */
+const TEXT_INPUT_TYPES = new Set(['text', 'search', 'number', 'email', 'url', 'tel', 'password']);
+
+function focusedTextField(): boolean {
+  const element = document.activeElement;
+  if (element instanceof HTMLTextAreaElement) return true;
+  if (element instanceof HTMLInputElement) return TEXT_INPUT_TYPES.has(element.type);
+  return element instanceof HTMLElement && element.isContentEditable;
+}
+
+function control<T extends HTMLElement>(label: string, kind: new () => T): T | null {
+  const found = document.querySelector(`[aria-label="${label}"]`);
+  return found instanceof kind ? found : null;
+}
+
+/** The values a toggled slider had before it was turned to its minimum, to turn it back. */
+const toggledFrom = new WeakMap<HTMLInputElement, string>();
+
+/**
+ * Turns the slider named `label` to its minimum (combs hidden, scan hidden), or back
+ * to the value it had; a slider at its minimum with nothing remembered goes to `shown`.
+ */
+function toggleSlider(label: string, shown: string): void {
+  const slider = control(label, HTMLInputElement);
+  if (slider === null) return;
+  const off = slider.min || '0';
+  if (Number(slider.value) > Number(off)) {
+    toggledFrom.set(slider, slider.value);
+    slider.value = off;
+  } else {
+    slider.value = toggledFrom.get(slider) ?? shown;
+  }
+  slider.dispatchEvent(new Event('input', { bubbles: true }));
+}
+
+/** Every point of glyph `id`, for Select all. */
+export function allPointsOf(document: GlyphDocument, id: GlyphId): PointRef[] {
+  return glyphOf(document, id).outline.contours.flatMap((contour, c) => contour.points.map((_, p) => ({ glyph: id, contour: c, point: p })));
+}
+
+/** What a failed command says in the window. */
+function messageOf(error: unknown): string {
+  return error instanceof HostError || error instanceof Error ? error.message : String(error);
+}
+
+/** Comb length and scan opacity to show when a slider toggled on has nothing remembered (OneLetter.svelte's defaults). */
+const SHOWN_COMB_LENGTH = '1';
+const SHOWN_SCAN_OPACITY = '0.35';
+
+export class MenuCommands {
+  /** A problem a command ran into, for the window to show; null when there is none. */
+  problem = $state<string | null>(null);
+  private lastReport = '';
+
+  constructor(private readonly actions: MenuActions) {}
+
+  /** Starts taking the shell's commands; returns the function that stops. */
+  listen(): () => void {
+    return host.onMenuCommand((message) => void this.run(message));
+  }
+
+  /** Runs one message from the shell. */
+  async run(message: MenuMessage): Promise<void> {
+    this.problem = null;
+    try {
+      if (message.command === 'open-recent') {
+        await this.actions.openRecent(message.handle);
+        return;
+      }
+      const textCommand = TEXT_FIELD_COMMANDS[message.command];
+      if (textCommand !== undefined && focusedTextField()) {
+        document.execCommand(textCommand);
+        return;
+      }
+      await this.command(message.command);
+    } catch (error) {
+      this.problem = messageOf(error);
+    }
+  }
+
+  private async command(command: MenuCommand): Promise<void> {
+    const a = this.actions;
+    switch (command) {
+      case 'save-project':
+        return a.save();
+      case 'save-project-as':
+        return a.saveAs();
+      case 'save-and-close':
+        await a.save();
+        if (!a.isDirty()) await host.closeWindow({});
+        return;
+      case 'import-scans': {
+        const scan = await host.importScan({});
+        if (scan !== null) await a.openScan(new File([scan.bytes as Uint8Array<ArrayBuffer>], scan.name));
+        return;
+      }
+      case 'export-font':
+        return a.exportFont();
+      case 'undo':
+        return a.editing()?.undo();
+      case 'redo':
+        return a.editing()?.redo();
+      case 'select-all': {
+        const editing = a.editing();
+        const id = a.openLetter();
+        if (editing && id !== null) editing.dispatch(selectPoints(editing.state.document, allPointsOf(editing.state.document, id), 'replace'));
+        return;
+      }
+      case 'delete-selection': {
+        const editing = a.editing();
+        // As the canvas's Delete key: the selected points go and their neighbours are refitted (core point-commands.ts).
+        const change = editing && a.openLetter() !== null ? deleteSelection(editing.state.document) : null;
+        if (editing && change) editing.dispatch(change);
+        return;
+      }
+      case 'zoom-in':
+        control(EDITOR_CONTROLS.zoomIn, HTMLButtonElement)?.click();
+        return;
+      case 'zoom-out':
+        control(EDITOR_CONTROLS.zoomOut, HTMLButtonElement)?.click();
+        return;
+      case 'toggle-combs':
+        return toggleSlider(EDITOR_CONTROLS.combLength, SHOWN_COMB_LENGTH);
+      case 'toggle-scan-backdrop':
+        return toggleSlider(EDITOR_CONTROLS.scanOpacity, SHOWN_SCAN_OPACITY);
+      case 'toggle-proof':
+        return a.toggleProof();
+    }
+  }
+
+  /** Tells the host the project's state when it differs from what was told last. */
+  report(state: ProjectState): void {
+    const key = JSON.stringify(state);
+    if (key === this.lastReport) return;
+    this.lastReport = key;
+    host.reportProjectState(state).catch(() => {
+      // The title and menus are a convenience: a failed report is retried with the next change.
+      this.lastReport = '';
+    });
+  }
+}

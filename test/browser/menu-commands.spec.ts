@@ -1,0 +1,111 @@
+// The desktop menus' commands as the page runs them, in the real renderer against the
+// real handlers: a stand-in for the desktop preload (the same window.stemline shape,
+// its intents sent to the browser host over HTTP, its menu event driven by the test)
+// is installed before the page loads, so the page takes the desktop bridge. Each
+// command must do what the page's own control does; the page must report its
+// project's state; and in a focused text field the Edit commands edit the text.
+import { test, expect, type Page } from '@playwright/test';
+import { checkRequirement, CHROMIUM } from '../support/require-tool.ts';
+import { openFittedDemoSheet } from '../support/demo-sheet.ts';
+
+const chromium = checkRequirement(CHROMIUM);
+
+/** The stand-in bridge: every intent over HTTP (as host-api.ts's browser client does), the menu event kept for the test. */
+function installBridge(): void {
+  const reports: unknown[] = [];
+  let menuListener: ((message: unknown) => void) | null = null;
+  const call = async (intent: string, args: unknown) => {
+    const response = await fetch(`./api/${intent}`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(args) });
+    const reply = (await response.json()) as { result?: unknown; error?: { kind: string; message: string } };
+    if (reply.error) throw Object.assign(new Error(reply.error.message), { kind: reply.error.kind });
+    return reply.result;
+  };
+  const intents = ['appInfo', 'listProjects', 'openProject', 'saveProject', 'saveProjectAs', 'autosaveProject', 'findRecoveredWork', 'discardRecoveredWork', 'buildProofFont', 'exportFont', 'listRecentProjects', 'openRecentProject', 'importScan', 'closeWindow'];
+  const bridge: Record<string, unknown> = Object.fromEntries(intents.map((name) => [name, (args: unknown) => call(name, args)]));
+  bridge.reportProjectState = (state: unknown) => {
+    reports.push(state);
+    return call('reportProjectState', state);
+  };
+  bridge.onMenuCommand = (listener: (message: unknown) => void) => {
+    menuListener = listener;
+    return () => (menuListener = null);
+  };
+  Object.assign(window, { stemline: bridge, menuTest: { reports, send: (message: unknown) => menuListener?.(message) } });
+}
+
+async function menu(page: Page, command: string): Promise<void> {
+  await page.evaluate((c) => (window as unknown as { menuTest: { send(m: unknown): void } }).menuTest.send({ command: c }), command);
+}
+
+async function lastReport(page: Page): Promise<Record<string, unknown> | undefined> {
+  return page.evaluate(() => (window as unknown as { menuTest: { reports: Record<string, unknown>[] } }).menuTest.reports.at(-1));
+}
+
+async function openLetterO(page: Page): Promise<void> {
+  await openFittedDemoSheet(page);
+  await page.getByTestId('letter-thumbnail').filter({ has: page.locator('text=o') }).first().click();
+  await expect(page.getByTestId('letter-canvas')).toBeVisible();
+}
+
+test.describe('the desktop menus’ commands in the page', () => {
+  test.skip(!chromium.available, chromium.message);
+  test.beforeEach(async ({ page }) => {
+    await page.addInitScript(installBridge);
+  });
+
+  test('the page reports its project’s state from the start and as it changes', async ({ page }) => {
+    await page.goto('/');
+    await expect.poll(() => lastReport(page)).toEqual({ title: 'Untitled project', hasProject: false, hasUnsavedChanges: false, canUndo: false, canRedo: false });
+    await openLetterO(page);
+    await expect.poll(() => lastReport(page)).toMatchObject({ hasProject: true, hasUnsavedChanges: true });
+  });
+
+  test('Select all, Delete and Undo act on the letter’s points as the canvas keys do', async ({ page }) => {
+    await openLetterO(page);
+    const points = page.getByTestId('on-curve-point');
+    const count = await points.count();
+    await menu(page, 'select-all');
+    await expect(page.locator('[data-testid="on-curve-point"][data-selected="true"]')).toHaveCount(count);
+    await menu(page, 'delete-selection');
+    await expect(page.getByTestId('undo-steps')).toHaveText('1 edit to undo');
+    await expect.poll(() => lastReport(page)).toMatchObject({ canUndo: true });
+    await menu(page, 'undo');
+    await expect(page.getByTestId('undo-steps')).toHaveText('0 edits to undo');
+    await expect(page.getByTestId('letter-status')).toContainText('2 contours');
+    await menu(page, 'redo');
+    await expect(page.getByTestId('undo-steps')).toHaveText('1 edit to undo');
+  });
+
+  test('Zoom, combs, scan backdrop and the proof work the editor’s own controls', async ({ page }) => {
+    await openLetterO(page);
+    const canvas = page.getByTestId('letter-canvas');
+    const scale = Number(await canvas.getAttribute('data-scale'));
+    await menu(page, 'zoom-in');
+    await expect.poll(async () => Number(await canvas.getAttribute('data-scale'))).toBeGreaterThan(scale);
+    await menu(page, 'zoom-out');
+    await expect.poll(async () => Number(await canvas.getAttribute('data-scale'))).toBeCloseTo(scale, 3);
+    const combLength = page.getByLabel('Comb length');
+    await menu(page, 'toggle-combs');
+    await expect(combLength).toHaveValue('0');
+    await menu(page, 'toggle-combs');
+    await expect(combLength).toHaveValue('1');
+    const scan = page.getByTestId('scan-opacity');
+    await menu(page, 'toggle-scan-backdrop');
+    await expect(scan).toHaveValue('0');
+    await menu(page, 'toggle-scan-backdrop');
+    await expect(scan).toHaveValue('0.35');
+    await menu(page, 'toggle-proof');
+    await expect(page.getByTestId('proof-panel')).toBeVisible();
+  });
+
+  test('in a focused text field, Select all selects its text, not the letter’s points', async ({ page }) => {
+    await openLetterO(page);
+    await menu(page, 'toggle-proof');
+    const text = page.getByTestId('proof-text');
+    await text.fill('Harbour');
+    await text.focus();
+    await menu(page, 'select-all');
+    expect(await text.evaluate((input: HTMLInputElement) => [input.selectionStart, input.selectionEnd])).toEqual([0, 'Harbour'.length]);
+    await expect(page.locator('[data-testid="on-curve-point"][data-selected="true"]')).toHaveCount(0);
+  });
+});
