@@ -14,6 +14,7 @@ import { pageBenchmarks, pageReport } from './page.bench.ts';
 import { fitBenchmarks } from './fit.bench.ts';
 import { peerBenchmarks, peerReport } from './peers.bench.ts';
 import { fontBenchmarks } from './font.bench.ts';
+import { measureEditor } from './editor.bench.ts';
 import { measureRoundTrip, summaryTable } from '../fit/round-trip-measure.ts';
 
 /** Minimum measuring time per task: enough samples for a stable median on a busy 2-core machine. */
@@ -28,6 +29,8 @@ interface TaskReport {
   /** Median absolute deviation of the per-operation times. */
   madMs: number;
   p99Ms: number;
+  /** 95th percentile, for the tasks measured in the browser (their goals are stated as p95). */
+  p95Ms?: number;
   samples: number;
 }
 
@@ -49,6 +52,8 @@ interface Suite {
   options?: { iterations?: number; time?: number; warmupIterations?: number };
   /** Extra lines printed after the suite (throughputs, splits). */
   report?: (bench: Bench) => string[] | Promise<string[]>;
+  /** Tasks timed outside tinybench (in the browser), with their lines to print. */
+  measure?: () => Promise<{ lines: string[]; tasks: TaskReport[] }>;
 }
 
 const suites: Suite[] = [
@@ -59,6 +64,10 @@ const suites: Suite[] = [
   { name: 'font', register: fontBenchmarks, options: { iterations: PEER_ITERATIONS, time: 0, warmupIterations: 1 } },
   { name: 'peers', register: peerBenchmarks, options: { iterations: PEER_ITERATIONS, time: 0, warmupIterations: 1 }, report: peerReport },
   { name: 'round trip', register: () => undefined, report: roundTripReport },
+  { name: 'editor', register: () => undefined, measure: async () => {
+    const { lines, tasks } = await measureEditor();
+    return { lines, tasks: tasks.map((t) => ({ suite: 'editor', ...t })) };
+  } },
 ];
 
 /** The round trip on the reference fonts (A–Z a–z 0–9, three variants): the fit-quality figures of the README. */
@@ -106,7 +115,9 @@ for (const suite of selected) {
     reports.push(report);
     console.log(`  ${task.name.padEnd(60)} median ${formatMs(report.medianMs).padStart(10)}  ± ${formatMs(report.madMs).padStart(9)} (MAD)  p99 ${formatMs(report.p99Ms)}  ${report.samples} runs`);
   }
-  const extra = suite.report ? await suite.report(bench) : [];
+  const timed = suite.measure ? await suite.measure() : { lines: [], tasks: [] };
+  reports.push(...timed.tasks);
+  const extra = [...timed.lines, ...(suite.report ? await suite.report(bench) : [])];
   for (const line of extra) console.log(`  ${line}`);
   const peak = peakResidentMiB();
   console.log(`  peak resident memory so far: ${peak.toFixed(0)} MiB`);
