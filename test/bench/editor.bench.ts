@@ -200,12 +200,29 @@ async function prepareDragProject(page: Page, workspace: string): Promise<string
   return 'dense.stemline';
 }
 
-async function measureDrag(page: Page, fileName: string): Promise<{ handler: number[]; input: number[] }> {
+/**
+ * Environment variable naming a file for a Chromium trace of the drag (open it in
+ * Perfetto or chrome://tracing to see where a move's time goes); unset, no trace.
+ */
+const TRACE_VARIABLE = 'STEMLINE_BENCH_TRACE';
+/** The trace's categories: the main thread's tasks, script, style, layout and paint, and JavaScript samples. */
+const TRACE_CATEGORIES = ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'blink', 'v8', 'disabled-by-default-v8.cpu_profiler'];
+
+async function measureDrag(browser: Browser, page: Page, fileName: string): Promise<{ handler: number[]; input: number[] }> {
   await openProject(page, fileName);
   await page.getByTestId('letter-thumbnail').filter({ hasText: 'o' }).first().click();
   const segments = Number(await page.getByTestId('letter-status').getAttribute('data-segments'));
   if (segments !== DRAG_GLYPH_SEGMENTS) throw new Error(`editor: the dense letter has ${segments} segments, not ${DRAG_GLYPH_SEGMENTS}.`);
-  return dragPoint(page);
+  const tracePath = process.env[TRACE_VARIABLE];
+  if (tracePath) await browser.startTracing(page, { path: tracePath, categories: TRACE_CATEGORIES });
+  try {
+    return await dragPoint(page);
+  } finally {
+    if (tracePath) {
+      await browser.stopTracing();
+      console.log(`  trace of the drag written to ${tracePath}`);
+    }
+  }
 }
 
 /**
@@ -264,7 +281,7 @@ export async function measureEditor(): Promise<EditorMeasurement> {
     page.on('pageerror', (error) => console.error(`editor: the page threw: ${error.message}`));
 
     const dense = await prepareDragProject(page, workspace);
-    const drag = await measureDrag(page, dense);
+    const drag = await measureDrag(browser, page, dense);
 
     await fitSheet(page, await hundredLetterSheetPng(), sheetCharacters(), `${SHEET_LETTER_COUNT} letters in`);
     await saveAs(page, 'hundred');

@@ -11,14 +11,25 @@ function fmt(n: number): string {
   return (Math.round(n * 100) / 100).toString();
 }
 
+function screenPair(p: Point, view: ViewTransform): string {
+  const q = toScreen(view, p);
+  return `${fmt(q.x)} ${fmt(q.y)}`;
+}
+
+/** The path data that moves to a contour's start point at this view ("M x y"). */
+export function moveToPathData(p: Point, view: ViewTransform): string {
+  return `M${screenPair(p, view)}`;
+}
+
+/** One segment's path data at this view, from its start (L or C, absolute screen pixels). */
+export function segmentPathData(g: OutlineSegment, view: ViewTransform): string {
+  return g.kind === 'line' ? `L${screenPair(g.p1, view)}` : `C${screenPair(g.p1, view)} ${screenPair(g.p2, view)} ${screenPair(g.p3, view)}`;
+}
+
 function openPathData(segments: readonly OutlineSegment[], view: ViewTransform): string {
   const first = segments[0];
   if (!first) return '';
-  const s = (p: Point) => {
-    const q = toScreen(view, p);
-    return `${fmt(q.x)} ${fmt(q.y)}`;
-  };
-  return `M${s(first.p0)}` + segments.map((g) => (g.kind === 'line' ? `L${s(g.p1)}` : `C${s(g.p1)} ${s(g.p2)} ${s(g.p3)}`)).join('');
+  return moveToPathData(first.p0, view) + segments.map((g) => segmentPathData(g, view)).join('');
 }
 
 /** SVG path data of one closed contour at this view (M/L/C/Z, absolute screen pixels). */
@@ -84,14 +95,17 @@ export function handleAnchors(contour: OutlineContour): [number, number][] {
   return pairs;
 }
 
+/** SVG path data of one handle line, from the handle `h` to its on-curve point `a`, at this view. */
+export function handleLinePathData(h: Point, a: Point, view: ViewTransform): string {
+  return `M${screenPair(h, view)}L${screenPair(a, view)}`;
+}
+
 /** SVG path data of every handle line (handle to its on-curve point) at this view. */
 export function handleLinesPathData(outline: GlyphOutline, view: ViewTransform): string {
   return outline.contours
     .flatMap((contour) =>
       handleAnchors(contour).map(([h, a]) => {
-        const p = toScreen(view, contour.points[h]!);
-        const q = toScreen(view, contour.points[a]!);
-        return `M${fmt(p.x)} ${fmt(p.y)}L${fmt(q.x)} ${fmt(q.y)}`;
+        return handleLinePathData(contour.points[h]!, contour.points[a]!, view);
       }),
     )
     .join('');
