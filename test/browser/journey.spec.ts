@@ -31,9 +31,14 @@ const README_SHOTS = process.env.STEMLINE_README_SHOTS === '1';
 const README_IMAGES = fileURLToPath(new URL('../../docs/images/', import.meta.url));
 const README_SHOT_OF_STEP: Readonly<Record<string, string>> = {
   '03-sheet-assigned': 'sheet.png',
-  '06-letter-dragged': 'letter.png',
+  '05-letter-a': 'letter.png',
   '08-proof': 'proof.png',
 };
+/** The most a README image may weigh: our own limit, so the repository stays light to clone. */
+const README_IMAGE_MAX_BYTES = 400 * 1024;
+/** Where a PNG's width and height sit: the IHDR chunk, first after the 8-byte signature (PNG specification, 11.2.2). */
+const PNG_WIDTH_OFFSET = 16;
+const PNG_HEIGHT_OFFSET = 20;
 
 /** Opening the 600-dpi sheet and fitting its 70 letters in the page's worker, on a slow shared machine (about 3 s here). */
 const SHEET_WORK_TIMEOUT_MS = 60_000;
@@ -112,6 +117,9 @@ test.describe('a newcomer’s first session, from a new project to an exported f
       await page.screenshot({ path });
       const readme = README_SHOT_OF_STEP[step];
       if (README_SHOTS && readme) {
+        const png = readFileSync(path);
+        expect(png.length, `${readme} is light enough for the README`).toBeLessThan(README_IMAGE_MAX_BYTES);
+        expect([png.readUInt32BE(PNG_WIDTH_OFFSET), png.readUInt32BE(PNG_HEIGHT_OFFSET)], `${readme} is the window's size`).toEqual([VIEWPORT.width, VIEWPORT.height]);
         mkdirSync(README_IMAGES, { recursive: true });
         copyFileSync(path, join(README_IMAGES, readme));
       }
@@ -126,6 +134,7 @@ test.describe('a newcomer’s first session, from a new project to an exported f
       await page.getByRole('button', { name: 'Start a new project from your own scans' }).click();
       await expect(page.getByRole('heading', { level: 1 })).toHaveText('Untitled project');
       await expect(page.getByTestId('empty-note')).toBeVisible();
+      await expect(page.getByRole('button', { name: 'Open the demo project' })).toBeVisible();
       await shot('01-new-project');
     });
 
