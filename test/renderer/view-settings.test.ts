@@ -29,11 +29,13 @@ describe('view settings', () => {
     expect(view.combLength).toBe(0.7);
   });
 
-  it('shows combs dragged to nothing on the slider at the last length they had', () => {
+  it('shows combs dragged to nothing on the slider at the length they had when last hidden, not a sliver', () => {
     const view = new ViewSettings();
     view.combLength = 3;
     view.toggleCombs();
     view.toggleCombs();
+    // The slider passes 0.1 on its way down; showing the combs at that would barely show them.
+    view.combLength = 0.1;
     view.combLength = 0;
     view.toggleCombs();
     expect(view.combLength).toBe(3);

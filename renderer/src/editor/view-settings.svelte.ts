@@ -40,7 +40,11 @@ export class ViewSettings {
   combDensity = $state(DEFAULT_COMB_DENSITY);
   /** Comb length as a multiple of the base length; 0 hides the combs. */
   combLength = $state(DEFAULT_COMB_LENGTH);
-  /** What the combs and the scan come back at when shown again: the last value they had while shown. */
+  /**
+   * What the combs and the scan come back at when shown again: the value they had when
+   * last hidden by a toggle (the defaults until then). A slider dragged down to nothing is
+   * not remembered at the small value it passed last, which would barely show.
+   */
   private shownCombLength = DEFAULT_COMB_LENGTH;
   private shownScanOpacity = DEFAULT_SCAN_OPACITY;
   private zoomTarget: ZoomTarget | null = null;
@@ -55,7 +59,7 @@ export class ViewSettings {
     return this.scanOpacity > SCAN_OPACITY_RANGE.min;
   }
 
-  /** Hides the combs, remembering their length, or shows them again at it (at 1× when they were never shown). */
+  /** Hides the combs, remembering their length, or shows them again at it (at 1× when they were never hidden by a toggle). */
   toggleCombs(): void {
     if (this.combsShown) {
       this.shownCombLength = this.combLength;
@@ -63,7 +67,7 @@ export class ViewSettings {
     } else this.combLength = this.shownCombLength;
   }
 
-  /** Hides the scan, remembering its opacity, or shows it again at it. */
+  /** Hides the scan, remembering its opacity, or shows it again at it (at 0.35 when it was never hidden by a toggle). */
   toggleScan(): void {
     if (this.scanShown) {
       this.shownScanOpacity = this.scanOpacity;
