@@ -19,6 +19,8 @@ export interface AppInfo {
   host: HostKind;
   /** Platform string of the machine running the host (e.g. 'linux'). */
   platform: string;
+  /** Whether this host offers the demo project (openDemo answers with it), so an empty project can offer the way back to it. */
+  demoOffered: boolean;
 }
 
 /**

@@ -24,7 +24,7 @@ type Handler<K extends IntentName> = (
 type HandlerTable = { [K in IntentName]: Handler<K> };
 
 function appInfo(_args: Record<string, never>, context: HostContext): AppInfo {
-  return { name: APP_NAME, version: APP_VERSION, host: context.host, platform: process.platform };
+  return { name: APP_NAME, version: APP_VERSION, host: context.host, platform: process.platform, demoOffered: context.demoFolder !== null };
 }
 
 const HANDLERS: HandlerTable = {

@@ -7,14 +7,15 @@
 // one is focused, as a menu's Edit commands do everywhere. Browser mode has no menu:
 // nothing arrives there, and the state reports are simply taken.
 //
-// The one-letter editor keeps its zoom, comb and scan settings inside its own
-// controls, so the View commands work those controls (found by their accessible
-// names, the same ones the browser tests use); they do nothing while no letter is open.
+// The View commands change the window's view settings (editor/view-settings.svelte.ts),
+// the same state the one-letter editor's sliders and zoom buttons are bound to; they do
+// nothing while no letter is open.
 import { host, HostError } from './host-api.ts';
 import type { MenuCommand, MenuMessage, ProjectHandle, ProjectState } from '../../electron/api-contract.ts';
 import type { GlyphDocument, GlyphId, PointRef } from '../../core/document/index.ts';
 import { deleteSelection, glyphOf, selectPoints } from '../../core/document/index.ts';
 import type { LetterEditing } from './editor/letter-editing.svelte.ts';
+import type { ViewSettings } from './editor/view-settings.svelte.ts';
 
 /** What the page does for each command; App.svelte supplies these from its own actions. */
 export interface MenuActions {
@@ -31,15 +32,9 @@ export interface MenuActions {
   /** The letter open in the one-letter editor (Select all and Delete act on its points), or null. */
   openLetter(): GlyphId | null;
   toggleProof(): void;
+  /** How the open letter is shown: what Zoom, Curvature combs and Scan backdrop change. */
+  readonly view: ViewSettings;
 }
-
-/** The editor controls the View commands work, by accessible name (renderer/src/screens/OneLetter.svelte). */
-export const EDITOR_CONTROLS = {
-  zoomIn: 'Zoom in',
-  zoomOut: 'Zoom out',
-  combLength: 'Comb length',
-  scanOpacity: 'Scan opacity',
-} as const;
 
 /** The Edit commands a focused text field answers itself, and the editing command each stands for. */
 const TEXT_FIELD_COMMANDS: Partial<Record<MenuCommand, string>> = {
@@ -59,31 +54,6 @@ function focusedTextField(): boolean {
   return element instanceof HTMLElement && element.isContentEditable;
 }
 
-function control<T extends HTMLElement>(label: string, kind: new () => T): T | null {
-  const found = document.querySelector(`[aria-label="${label}"]`);
-  return found instanceof kind ? found : null;
-}
-
-/** The values a toggled slider had before it was turned to its minimum, to turn it back. */
-const toggledFrom = new WeakMap<HTMLInputElement, string>();
-
-/**
- * Turns the slider named `label` to its minimum (combs hidden, scan hidden), or back
- * to the value it had; a slider at its minimum with nothing remembered goes to `shown`.
- */
-function toggleSlider(label: string, shown: string): void {
-  const slider = control(label, HTMLInputElement);
-  if (slider === null) return;
-  const off = slider.min || '0';
-  if (Number(slider.value) > Number(off)) {
-    toggledFrom.set(slider, slider.value);
-    slider.value = off;
-  } else {
-    slider.value = toggledFrom.get(slider) ?? shown;
-  }
-  slider.dispatchEvent(new Event('input', { bubbles: true }));
-}
-
 /** Every point of glyph `id`, for Select all. */
 export function allPointsOf(document: GlyphDocument, id: GlyphId): PointRef[] {
   return glyphOf(document, id).outline.contours.flatMap((contour, c) => contour.points.map((_, p) => ({ glyph: id, contour: c, point: p })));
@@ -93,10 +63,6 @@ export function allPointsOf(document: GlyphDocument, id: GlyphId): PointRef[] {
 function messageOf(error: unknown): string {
   return error instanceof HostError || error instanceof Error ? error.message : String(error);
 }
-
-/** Comb length and scan opacity to show when a slider toggled on has nothing remembered (OneLetter.svelte's defaults). */
-const SHOWN_COMB_LENGTH = '1';
-const SHOWN_SCAN_OPACITY = '0.35';
 
 export class MenuCommands {
   /** A problem a command ran into, for the window to show; null when there is none. */
@@ -165,15 +131,15 @@ export class MenuCommands {
         return;
       }
       case 'zoom-in':
-        control(EDITOR_CONTROLS.zoomIn, HTMLButtonElement)?.click();
-        return;
+        return a.view.zoomIn();
       case 'zoom-out':
-        control(EDITOR_CONTROLS.zoomOut, HTMLButtonElement)?.click();
-        return;
+        return a.view.zoomOut();
       case 'toggle-combs':
-        return toggleSlider(EDITOR_CONTROLS.combLength, SHOWN_COMB_LENGTH);
+        if (a.openLetter() !== null) a.view.toggleCombs();
+        return;
       case 'toggle-scan-backdrop':
-        return toggleSlider(EDITOR_CONTROLS.scanOpacity, SHOWN_SCAN_OPACITY);
+        if (a.openLetter() !== null) a.view.toggleScan();
+        return;
       case 'toggle-proof':
         return a.toggleProof();
     }

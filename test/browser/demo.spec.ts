@@ -1,10 +1,11 @@
 // The demo project: the app opens on it — the shipped scan imported, its 70 letters
 // assigned and fitted, shown at a glance — with the way to a new project of one's
-// own in view, and that way leads to an empty project where one's own scan opens.
+// own in view, and that way leads to an empty project where one's own scan opens, and
+// which offers the way back to the demo; the demo's font carries its family name.
 // This spec runs its own browser host, offering the demo as `npm start` does (the
 // suite's shared host is started with --no-demo, see playwright.config.ts).
 import { test, expect } from '@playwright/test';
-import { mkdtempSync } from 'node:fs';
+import { mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { checkRequirement, CHROMIUM } from '../support/require-tool.ts';
@@ -13,6 +14,7 @@ import { startBrowserHost, type BrowserHost } from '../../electron/browser-host.
 import { RENDERER_BUILD_DIR } from '../../electron/project-paths.ts';
 import { readDemoManifest } from '../../electron/demo/demo-files.ts';
 import { splitCharacters } from '../../core/raster/index.ts';
+import opentype from 'opentype.js/dist/opentype.js';
 
 const chromium = checkRequirement(CHROMIUM);
 
@@ -30,10 +32,11 @@ test.describe('the demo project', () => {
   test.setTimeout(DEMO_OPEN_TIMEOUT_MS + 30_000);
 
   let host: BrowserHost;
+  let folder: string;
   // Every request carries the run's key in its header (playwright.config.ts), so the page is the host's root.
   const appRoot = (h: BrowserHost): string => `${new URL(h.url).origin}/`;
   test.beforeAll(async () => {
-    const folder = mkdtempSync(join(tmpdir(), 'stemline-demo-host-'));
+    folder = mkdtempSync(join(tmpdir(), 'stemline-demo-host-'));
     // Port 0: a free port, so this host never meets another run's. The run's key, which
     // every request of the suite carries (playwright.config.ts), is this host's key too.
     const token = process.env.STEMLINE_BROWSER_TOKEN;
@@ -79,6 +82,38 @@ test.describe('the demo project', () => {
     await expect(page.getByTestId('project-name')).toHaveText('Untitled project');
     await page.getByTestId('scan-file').setInputFiles({ name: 'sheet.png', mimeType: 'image/png', buffer: await demoSheetPng() });
     await expect(page.getByTestId('letter-count')).toHaveText('3 letters in 1 row');
+  });
+
+  test('from a new project, “Open the demo project” brings the demo back, and its font carries the demo’s family name', async ({ page }) => {
+    const manifest = await readDemoManifest();
+    await page.goto(appRoot(host));
+    await expect(page.getByRole('heading', { name: 'Letters at a glance' })).toBeVisible({ timeout: DEMO_OPEN_TIMEOUT_MS });
+    await page.getByRole('button', { name: 'Start a new project from your own scans' }).click();
+    await expect(page.getByTestId('empty-note')).toBeVisible();
+    await page.getByRole('button', { name: 'Open the demo project' }).click();
+    await expect(page.getByTestId('demo-banner')).toContainText(manifest.title);
+    await expect(page.getByRole('heading', { name: 'Letters at a glance' })).toBeVisible({ timeout: DEMO_OPEN_TIMEOUT_MS });
+    await expect(page.getByTestId('project-name')).toHaveText(manifest.title);
+    await expect(page.getByTestId('unsaved-marker')).toHaveCount(0);
+    // The font is the demo's, not an untitled one: the export offers its family name, and the file written carries it.
+    await page.getByTestId('proof-toggle').click();
+    await page.getByTestId('export-font').click();
+    const chooser = page.getByTestId('font-export-chooser');
+    await expect(chooser.getByLabel('File name')).toHaveValue(`${manifest.familyName}.otf`);
+    await chooser.getByRole('button', { name: 'Export', exact: true }).click();
+    const path = join(folder, `${manifest.familyName}.otf`);
+    await expect(page.getByTestId('export-status')).toHaveText(`Exported ${manifest.familyName}.otf to ${path}`);
+    const bytes = readFileSync(path);
+    const font = opentype.parse(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
+    expect(font.getEnglishName('fontFamily')).toBe(manifest.familyName);
+  });
+
+  test('a new project offers the demo only where the host has one', async ({ page }) => {
+    // The suite's shared host runs with --no-demo (playwright.config.ts).
+    await page.goto('/');
+    await expect(page.getByTestId('empty-note')).toBeVisible();
+    await expect(page.getByTestId('host-line')).toBeVisible();
+    await expect(page.getByTestId('demo-way-back')).toHaveCount(0);
   });
 
   test('starts a new project at once while the demo is still opening, and the demo does not come back', async ({ page }) => {

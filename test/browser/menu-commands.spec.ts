@@ -76,7 +76,7 @@ test.describe('the desktop menus’ commands in the page', () => {
     await expect(page.getByTestId('undo-steps')).toHaveText('1 edit to undo');
   });
 
-  test('Zoom, combs, scan backdrop and the proof work the editor’s own controls', async ({ page }) => {
+  test('Zoom, combs, scan backdrop and the proof change what the editor’s own controls show', async ({ page }) => {
     await openLetterO(page);
     const canvas = page.getByTestId('letter-canvas');
     const scale = Number(await canvas.getAttribute('data-scale'));
@@ -84,18 +84,45 @@ test.describe('the desktop menus’ commands in the page', () => {
     await expect.poll(async () => Number(await canvas.getAttribute('data-scale'))).toBeGreaterThan(scale);
     await menu(page, 'zoom-out');
     await expect.poll(async () => Number(await canvas.getAttribute('data-scale'))).toBeCloseTo(scale, 3);
-    const combLength = page.getByLabel('Comb length');
+    // The menu and the slider change one setting: the combs hide at the menu and come back at the length set on the slider.
+    const combLength = page.getByTestId('comb-length');
+    await combLength.fill('2.5');
+    const teeth = Number(await canvas.getAttribute('data-comb-teeth'));
+    expect(teeth).toBeGreaterThan(0);
     await menu(page, 'toggle-combs');
     await expect(combLength).toHaveValue('0');
+    await expect(canvas).toHaveAttribute('data-comb-teeth', '0');
+    await expect(page.getByTestId('comb-envelope')).toHaveAttribute('d', '');
     await menu(page, 'toggle-combs');
-    await expect(combLength).toHaveValue('1');
+    await expect(combLength).toHaveValue('2.5');
+    await expect(canvas).toHaveAttribute('data-comb-teeth', String(teeth));
     const scan = page.getByTestId('scan-opacity');
     await menu(page, 'toggle-scan-backdrop');
     await expect(scan).toHaveValue('0');
+    await expect(page.getByTestId('scan-under')).toHaveAttribute('opacity', '0');
     await menu(page, 'toggle-scan-backdrop');
     await expect(scan).toHaveValue('0.35');
+    // The settings stay as they were set when another letter is opened.
+    await menu(page, 'toggle-scan-backdrop');
+    await page.getByRole('button', { name: '← All letters' }).click();
+    await page.getByTestId('letter-thumbnail').filter({ has: page.locator('text=l') }).first().click();
+    await expect(page.getByRole('heading', { level: 1 })).toHaveText('l');
+    await expect(combLength).toHaveValue('2.5');
+    await expect(scan).toHaveValue('0');
     await menu(page, 'toggle-proof');
     await expect(page.getByTestId('proof-panel')).toBeVisible();
+  });
+
+  test('View commands change nothing while no letter is open', async ({ page }) => {
+    await openLetterO(page);
+    await page.getByRole('button', { name: '← All letters' }).click();
+    await expect(page.getByRole('heading', { name: 'Letters at a glance' })).toBeVisible();
+    await menu(page, 'toggle-combs');
+    await menu(page, 'toggle-scan-backdrop');
+    await menu(page, 'zoom-in');
+    await page.getByTestId('letter-thumbnail').filter({ has: page.locator('text=o') }).first().click();
+    await expect(page.getByTestId('comb-length')).toHaveValue('1');
+    await expect(page.getByTestId('scan-opacity')).toHaveValue('0.35');
   });
 
   test('in a focused text field, Select all selects its text, not the letter’s points', async ({ page }) => {

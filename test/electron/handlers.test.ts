@@ -15,13 +15,18 @@ describe('host handlers', () => {
   it('report the product name and the version package.json declares (the about screen would lie otherwise)', async () => {
     const pkg = JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as { name: string; version: string };
     const info = await invokeHandler('appInfo', {}, browser);
-    expect(info).toEqual({ name: APP_NAME, version: pkg.version, host: 'browser', platform: process.platform });
+    expect(info).toEqual({ name: APP_NAME, version: pkg.version, host: 'browser', platform: process.platform, demoOffered: true });
     expect(APP_VERSION).toBe(pkg.version);
     expect(pkg.name).toBe('stemline');
   });
 
   it('tell the renderer which host serves it', async () => {
     expect(await invokeHandler('appInfo', null, desktop)).toMatchObject({ host: 'electron' });
+  });
+
+  it('tell the renderer whether the demo project is offered, so a new project shows the way back to it only when there is one', async () => {
+    expect(await invokeHandler('appInfo', {}, desktop)).toMatchObject({ demoOffered: true });
+    expect(await invokeHandler('appInfo', {}, { ...browser, demoFolder: null })).toMatchObject({ demoOffered: false });
   });
 
   it('refuse an intent that does not exist, with a message for the user', async () => {

@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { Bezier } from 'bezier-js';
 import { cubic, line } from '../../core/geometry/segment.ts';
-import { combScale, contourCombs, envelopePathData, teethPathData } from '../../renderer/src/editor/comb-geometry.ts';
+import { combMaxLength, combScale, contourCombs, envelopePathData, teethPathData } from '../../renderer/src/editor/comb-geometry.ts';
 
 const s = cubic({ x: 0, y: 0 }, { x: 120, y: 260 }, { x: 380, y: -90 }, { x: 500, y: 200 });
 const reference = new Bezier(0, 0, 120, 260, 380, -90, 500, 200);
@@ -48,10 +48,39 @@ describe('curvature combs', () => {
     expect(teethPathData([comb!], view).match(/M/g)).toHaveLength(5);
   });
 
-  it('makes 1× combs on a circle as tall as the letter a tenth of its height long', () => {
+  it('makes 1× combs on a circle as tall as the letter a twentieth of its height long', () => {
     const height = 700;
     // κ of a circle of diameter h is 2/h; the tooth is scale·κ.
-    expect(combScale(height, 1) * (2 / height)).toBeCloseTo(height / 10, 9);
+    expect(combScale(height, 1) * (2 / height)).toBeCloseTo(height / 20, 9);
     expect(combScale(height, 2)).toBeCloseTo(2 * combScale(height, 1), 9);
+  });
+
+  it('draws a tooth longer than the limit at the limit, along its own direction, and leaves shorter ones alone', () => {
+    const scale = 4000;
+    const [free] = contourCombs([s], { density: 17, scale });
+    const lengths = free!.teeth.map((t) => Math.hypot(t.tip.x - t.foot.x, t.tip.y - t.foot.y));
+    const limit = (Math.min(...lengths) + Math.max(...lengths)) / 2;
+    const [limited] = contourCombs([s], { density: 17, scale, maxLength: limit });
+    limited!.teeth.forEach((tooth, i) => {
+      const was = free!.teeth[i]!;
+      const length = lengths[i]!;
+      const drawn = Math.hypot(tooth.tip.x - tooth.foot.x, tooth.tip.y - tooth.foot.y);
+      expect(drawn).toBeCloseTo(Math.min(length, limit), 9);
+      // The same direction: the limited tooth is the free one shortened.
+      expect((tooth.tip.x - tooth.foot.x) * length).toBeCloseTo((was.tip.x - was.foot.x) * drawn, 6);
+      expect((tooth.tip.y - tooth.foot.y) * length).toBeCloseTo((was.tip.y - was.foot.y) * drawn, 6);
+      expect(tooth.curvature).toBe(was.curvature);
+    });
+    expect(limited!.envelope).toEqual(limited!.teeth.map((t) => t.tip));
+    expect(lengths.some((l) => l > limit) && lengths.some((l) => l < limit)).toBe(true);
+  });
+
+  it('limits 1× teeth to a third of the height, and the limit grows with the comb length', () => {
+    expect(combMaxLength(700, 1)).toBeCloseTo(700 / 3, 9);
+    // A 1× tooth reaches the limit on a turn of radius 3/40 of the height.
+    expect(combScale(700, 1) / ((700 * 3) / 40)).toBeCloseTo(combMaxLength(700, 1), 9);
+    expect(combMaxLength(700, 3)).toBeCloseTo(3 * combMaxLength(700, 1), 9);
+    // A circle as tall as the letter keeps its true 1× teeth under the limit.
+    expect(combScale(700, 1) * (2 / 700)).toBeLessThan(combMaxLength(700, 1));
   });
 });

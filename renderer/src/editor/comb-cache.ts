@@ -44,7 +44,7 @@ function segmentKey(index: number, segment: OutlineSegment): string {
 }
 
 function sameSettings(a: CombSettings | null, b: CombSettings): boolean {
-  return a !== null && a.density === b.density && a.scale === b.scale;
+  return a !== null && a.density === b.density && a.scale === b.scale && a.maxLength === b.maxLength;
 }
 
 export class CombCache {

@@ -3,7 +3,10 @@
  * row of teeth standing on the curve along its normal, each |κ|·scale long (core
  * geometry's curvatureComb, which puts them on the convex side), and the envelope
  * line through the teeth's outer ends. Straight segments have κ = 0 everywhere and get
- * no comb. Font units in, font units out; the canvas maps them to the screen.
+ * no comb. A tooth longer than the settings' longest is drawn at that length (its
+ * curvature kept), so a tight turn shows as a plateau of the envelope instead of a
+ * spike across the whole view. Font units in, font units out; the canvas maps them to
+ * the screen.
  */
 import type { Point } from '../../../core/geometry/vector.ts';
 import { curvatureComb } from '../../../core/geometry/curvature.ts';
@@ -25,6 +28,8 @@ export interface CombSettings {
   readonly density: number;
   /** Tooth length per unit curvature, font units² (tooth length = scale · |κ|). */
   readonly scale: number;
+  /** The longest tooth drawn, font units; longer ones are drawn this long. Absent: no limit. */
+  readonly maxLength?: number;
 }
 
 /** Teeth per segment offered by the density control, and its default (core's default comb density). */
@@ -34,15 +39,40 @@ export const DEFAULT_COMB_DENSITY = 32;
 
 /**
  * Comb length for the scale control's 1×: a circle whose diameter is the reference
- * height (the cap height) gets teeth a tenth of that height long — long enough to read
- * bumps at whole-letter zoom, short enough not to hide the letter (our own choice).
- * Tooth = scale·κ = scale·2/h, so scale = h²/20.
+ * height (the cap height) gets teeth a twentieth of that height long — long enough to
+ * read bumps at whole-letter zoom, short enough not to hide the letter: the bowls of a
+ * lowercase, at a third of that diameter, get teeth three times as long (our own
+ * choice; a tenth hid the demo alphabet's "a" under its combs).
+ * Tooth = scale·κ = scale·2/h, so scale = h²/40.
  */
-export const BASE_COMB_SHARE = 1 / 20;
+export const BASE_COMB_SHARE = 1 / 40;
 
 /** Tooth length per unit curvature for `multiplier` × the base comb length at reference height `height`. */
 export function combScale(height: number, multiplier: number): number {
   return BASE_COMB_SHARE * height * height * multiplier;
+}
+
+/**
+ * The longest tooth at 1×, as a share of the reference height: a third of the cap
+ * height, which a 1× tooth reaches on a turn of radius 3/40 of the height. A turn
+ * tighter than that (a pen terminal, the join of a bowl to its stem) would otherwise
+ * throw teeth many times the letter's size across the view, hiding the letter; the
+ * bowls and arches of a lowercase keep their teeth's true lengths (our own choice,
+ * tried on the demo alphabet's lowercase, whose "a" once drew a tooth 80,000 units long).
+ */
+export const MAX_TOOTH_SHARE = 1 / 3;
+
+/** The longest tooth drawn for `multiplier` × the base comb length at reference height `height`, font units. */
+export function combMaxLength(height: number, multiplier: number): number {
+  return MAX_TOOTH_SHARE * height * multiplier;
+}
+
+/** `tip` brought along the tooth from `foot` to at most `maxLength` away. */
+function limitedTip(foot: Point, tip: Point, maxLength: number | undefined): Point {
+  const length = Math.hypot(tip.x - foot.x, tip.y - foot.y);
+  if (maxLength === undefined || length <= maxLength) return tip;
+  const share = maxLength / length;
+  return { x: foot.x + (tip.x - foot.x) * share, y: foot.y + (tip.y - foot.y) * share };
 }
 
 /** The combs of a contour's curved segments. */
@@ -51,11 +81,8 @@ export function contourCombs(segments: readonly OutlineSegment[], settings: Comb
   segments.forEach((segment, i) => {
     if (segment.kind !== 'cubic') return;
     const samples = curvatureComb(segment, { samples: settings.density, scale: settings.scale });
-    combs.push({
-      segment: i,
-      teeth: samples.map((s) => ({ foot: s.point, tip: s.tip, curvature: s.curvature })),
-      envelope: samples.map((s) => s.tip),
-    });
+    const teeth = samples.map((s) => ({ foot: s.point, tip: limitedTip(s.point, s.tip, settings.maxLength), curvature: s.curvature }));
+    combs.push({ segment: i, teeth, envelope: teeth.map((t) => t.tip) });
   });
   return combs;
 }

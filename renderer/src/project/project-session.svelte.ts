@@ -271,6 +271,19 @@ export class ProjectSession {
    */
   async openDemo(): Promise<void> {
     if (this.recovery !== null || this.handle !== null || this.dirty) return;
+    await this.loadDemo();
+  }
+
+  /**
+   * Opens the demo project again when the user asks for it from a new project: the
+   * window's work is autosaved first, as for a new project, so nothing is lost.
+   */
+  async returnToDemo(): Promise<void> {
+    await this.startNew();
+    await this.loadDemo();
+  }
+
+  private async loadDemo(): Promise<void> {
     try {
       const demo = await host.openDemo({});
       if (demo === null || this.recovery !== null || this.handle !== null) return;

@@ -11,6 +11,7 @@ import { projectContent } from './project-content.ts';
 import { restoredLetters } from './restored-letters.ts';
 import { keptOutlines } from './kept-outlines.ts';
 import { fontMetricsOf, letterDocument } from '../editor/letter-document.ts';
+import { newProject } from '../../../electron/io/project/new-project.ts';
 
 /** The last part of a project's relative scan path ("scans/capitals.png" → "capitals.png"). */
 function baseName(path: string): string {
@@ -22,7 +23,7 @@ export class Workbench {
   editing = $state.raw<LetterEditing | null>(null);
   /** Glyphs of the opened project not drawn from its scan (imported from a font): kept as they are. */
   carried = $state.raw<readonly ProjectGlyph[]>([]);
-  /** The project last opened, whose settings the window keeps; null for a new project. */
+  /** The project last opened, whose settings the window keeps (for the demo, a new project under its family name); null for a new project. */
   base = $state.raw<ProjectData | null>(null);
   /** While a project is being opened: the session tracing its scan, shown for progress. */
   restoring = $state.raw<ScanSession | null>(null);
@@ -145,7 +146,8 @@ export class Workbench {
   /**
    * Opens the demo project the way a user starts one: its scan opened, its characters
    * assigned and its letters fitted, with the progress shown as for a project being
-   * opened. True when the window now shows it; false when it was overtaken (a new
+   * opened, and its font named with the demo's family name (so the proof, a save and
+   * an export carry it, not "Untitled"). True when the window now shows it; false when it was overtaken (a new
    * project started, a project or a scan opened meanwhile), leaving the window as
    * the user made it. Throws an Error for the user when the demo cannot be opened.
    */
@@ -175,7 +177,7 @@ export class Workbench {
     this.scan = next;
     this.editing = new LetterEditing(next.fitted);
     this.carried = [];
-    this.base = null;
+    this.base = newProject(demo.familyName);
     this.baseScanFile = null;
     previous.dispose();
     return true;
