@@ -48,10 +48,10 @@ describe('curvature combs', () => {
     expect(teethPathData([comb!], view).match(/M/g)).toHaveLength(5);
   });
 
-  it('makes 1× combs on a circle as tall as the letter a twentieth of its height long', () => {
+  it('makes 1× combs on a circle as tall as the letter a fortieth of its height long', () => {
     const height = 700;
     // κ of a circle of diameter h is 2/h; the tooth is scale·κ.
-    expect(combScale(height, 1) * (2 / height)).toBeCloseTo(height / 20, 9);
+    expect(combScale(height, 1) * (2 / height)).toBeCloseTo(height / 40, 9);
     expect(combScale(height, 2)).toBeCloseTo(2 * combScale(height, 1), 9);
   });
 
@@ -75,8 +75,8 @@ describe('curvature combs', () => {
     expect(lengths.some((l) => l > limit) && lengths.some((l) => l < limit)).toBe(true);
   });
 
-  it('limits 1× teeth to a third of the height, and the limit grows with the comb length', () => {
-    expect(combMaxLength(700, 1)).toBeCloseTo(700 / 3, 9);
+  it('limits 1× teeth to a sixth of the height, and the limit grows with the comb length', () => {
+    expect(combMaxLength(700, 1)).toBeCloseTo(700 / 6, 9);
     // A 1× tooth reaches the limit on a turn of radius 3/40 of the height.
     expect(combScale(700, 1) / ((700 * 3) / 40)).toBeCloseTo(combMaxLength(700, 1), 9);
     expect(combMaxLength(700, 3)).toBeCloseTo(3 * combMaxLength(700, 1), 9);

@@ -39,13 +39,14 @@ export const DEFAULT_COMB_DENSITY = 32;
 
 /**
  * Comb length for the scale control's 1×: a circle whose diameter is the reference
- * height (the cap height) gets teeth a twentieth of that height long — long enough to
+ * height (the cap height) gets teeth a fortieth of that height long — long enough to
  * read bumps at whole-letter zoom, short enough not to hide the letter: the bowls of a
  * lowercase, at a third of that diameter, get teeth three times as long (our own
- * choice; a tenth hid the demo alphabet's "a" under its combs).
- * Tooth = scale·κ = scale·2/h, so scale = h²/40.
+ * choice; a tenth hid the demo alphabet's "a" under its combs, and a twentieth still
+ * fanned its tight pen turns across the counters). The control goes to 4× for a closer look.
+ * Tooth = scale·κ = scale·2/h, so scale = h²/80.
  */
-export const BASE_COMB_SHARE = 1 / 40;
+export const BASE_COMB_SHARE = 1 / 80;
 
 /** Tooth length per unit curvature for `multiplier` × the base comb length at reference height `height`. */
 export function combScale(height: number, multiplier: number): number {
@@ -53,14 +54,14 @@ export function combScale(height: number, multiplier: number): number {
 }
 
 /**
- * The longest tooth at 1×, as a share of the reference height: a third of the cap
+ * The longest tooth at 1×, as a share of the reference height: a sixth of the cap
  * height, which a 1× tooth reaches on a turn of radius 3/40 of the height. A turn
  * tighter than that (a pen terminal, the join of a bowl to its stem) would otherwise
  * throw teeth many times the letter's size across the view, hiding the letter; the
  * bowls and arches of a lowercase keep their teeth's true lengths (our own choice,
  * tried on the demo alphabet's lowercase, whose "a" once drew a tooth 80,000 units long).
  */
-export const MAX_TOOTH_SHARE = 1 / 3;
+export const MAX_TOOTH_SHARE = 1 / 6;
 
 /** The longest tooth drawn for `multiplier` × the base comb length at reference height `height`, font units. */
 export function combMaxLength(height: number, multiplier: number): number {
