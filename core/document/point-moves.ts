@@ -1,6 +1,6 @@
 /**
  * How points move when the user drags or nudges them: the rules a type designer
- * expects from an outline editor (common practice in Glyphs, FontLab, RoboFont).
+ * expects from an outline editor (common practice).
  *
  * - A moved on-curve point carries its handles (the off-curve points next to it).
  * - A handle moved on its own, next to a smooth on-curve point, turns the opposite
