@@ -1,0 +1,49 @@
+// Where a batch build's tasks run: in this thread, one after another (`--jobs 1`), or
+// on a pool of worker threads (`--jobs N`). Both run the same task functions
+// (batch-tasks.ts), so the results are the same bytes either way.
+import { runBatchTask, type BatchTask, type BatchTaskResult } from './batch-tasks.ts';
+import { WorkerPool } from './worker-pool.ts';
+import { batchWorkerScript, type WorkerScript } from './worker-script.ts';
+
+export interface BatchRunner {
+  /** Tasks that can run at once. */
+  readonly parallelism: number;
+  run<T extends BatchTask>(task: T): Promise<BatchTaskResult<T>>;
+  /** Resolves when another task may be given without the queue growing past its cap. */
+  room(): Promise<void>;
+  close(): Promise<void>;
+}
+
+/**
+ * Tasks kept waiting per worker: enough that a worker finishing a letter finds the
+ * next one ready without waiting for the main thread, few enough that the letters'
+ * boundaries are not all held at once (common practice for work queues: a small
+ * multiple of the workers).
+ */
+export const QUEUED_TASKS_PER_WORKER = 4;
+
+/** Runs every task in this thread, one at a time. */
+export function inlineRunner(): BatchRunner {
+  return {
+    parallelism: 1,
+    run: (task) => runBatchTask(task),
+    room: () => Promise.resolve(),
+    close: () => Promise.resolve(),
+  };
+}
+
+/** Runs tasks on `workers` worker threads. */
+export function poolRunner(workers: number, script: WorkerScript = batchWorkerScript()): BatchRunner {
+  const pool = new WorkerPool(workers, script);
+  return {
+    parallelism: workers,
+    run: (task) => pool.run(task),
+    room: () => pool.room(QUEUED_TASKS_PER_WORKER * workers),
+    close: () => pool.close(),
+  };
+}
+
+/** The runner for `--jobs jobs`: this thread for 1, worker threads for more. */
+export function runnerForJobs(jobs: number): BatchRunner {
+  return jobs <= 1 ? inlineRunner() : poolRunner(jobs);
+}
