@@ -9,6 +9,8 @@ export interface BatchRunner {
   /** Tasks that can run at once. */
   readonly parallelism: number;
   run<T extends BatchTask>(task: T): Promise<BatchTaskResult<T>>;
+  /** Runs a task in this thread, whatever the runner (for work that can start before the workers are up). */
+  runHere<T extends BatchTask>(task: T): Promise<BatchTaskResult<T>>;
   /** Resolves when another task may be given without the queue growing past its cap. */
   room(): Promise<void>;
   close(): Promise<void>;
@@ -27,6 +29,7 @@ export function inlineRunner(): BatchRunner {
   return {
     parallelism: 1,
     run: (task) => runBatchTask(task),
+    runHere: (task) => runBatchTask(task),
     room: () => Promise.resolve(),
     close: () => Promise.resolve(),
   };
@@ -38,6 +41,7 @@ export function poolRunner(workers: number, script: WorkerScript = batchWorkerSc
   return {
     parallelism: workers,
     run: (task) => pool.run(task),
+    runHere: (task) => runBatchTask(task),
     room: () => pool.room(QUEUED_TASKS_PER_WORKER * workers),
     close: () => pool.close(),
   };

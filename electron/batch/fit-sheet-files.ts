@@ -65,7 +65,9 @@ export async function fitSheetFiles(files: readonly string[], characters: string
   const startTrace = (i: number): void => {
     const path = files[i];
     if (path === undefined || traces[i]) return;
-    const traced = runner.run({ kind: 'trace', path, dpi: settings.dpi, scan: settings.scan });
+    // The first sheet is traced in this thread while the workers start up, and is not copied between threads.
+    const task = { kind: 'trace', path, dpi: settings.dpi, scan: settings.scan } as const;
+    const traced = i === 0 ? runner.runHere(task) : runner.run(task);
     traced.catch(ignore);
     traces[i] = traced;
   };
