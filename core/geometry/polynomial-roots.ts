@@ -133,35 +133,78 @@ export function realRootsInInterval(p: Polynomial, lo: number, hi: number): numb
   if (!(lo <= hi)) return [];
   const q = trimPolynomial(p);
   const degree = q.length - 1;
-  const inside = (x: number): boolean => x >= lo && x <= hi;
   if (degree <= 0) return [];
-  if (degree === 1) return solveLinear(q[1] ?? 0, q[0] ?? 0).filter(inside);
-  if (degree === 2) return solveQuadratic(q[2] ?? 0, q[1] ?? 0, q[0] ?? 0).filter(inside);
+  if (degree === 1) return rootsWithin(solveLinear(q[1] ?? 0, q[0] ?? 0), lo, hi);
+  if (degree === 2) return rootsWithin(solveQuadratic(q[2] ?? 0, q[1] ?? 0, q[0] ?? 0), lo, hi);
 
+  // Plain loops and no closures: this runs for every nearest-point query of the fitter.
   const dq = derivativeOfPolynomial(q);
-  const critical = realRootsInInterval(dq, lo, hi).filter((x) => x > lo && x < hi);
-  const breakpoints = [lo, ...critical, hi];
-  const values = breakpoints.map((x) => evaluatePolynomial(q, x));
-  const isZero = breakpoints.map(
-    (x, i) => Math.abs(values[i] ?? 0) <= polynomialEvaluationErrorBound(q, x),
-  );
-
+  const critical = realRootsInInterval(dq, lo, hi);
+  const breakpoints = [lo];
+  for (const x of critical) if (x > lo && x < hi) breakpoints.push(x);
+  breakpoints.push(hi);
+  const count = breakpoints.length;
+  const values = new Float64Array(count);
+  const isZero = new Uint8Array(count);
   const roots: number[] = [];
-  for (let i = 0; i < breakpoints.length; i++) {
-    if (isZero[i]) roots.push(breakpoints[i] ?? 0);
+  for (let i = 0; i < count; i++) {
+    const x = breakpoints[i] ?? 0;
+    const value = evaluatePolynomial(q, x);
+    values[i] = value;
+    if (Math.abs(value) <= polynomialEvaluationErrorBound(q, x)) {
+      isZero[i] = 1;
+      roots.push(x);
+    }
   }
-  const f = (x: number): number => evaluatePolynomial(q, x);
-  const fPrime = (x: number): number => evaluatePolynomial(dq, x);
-  for (let i = 0; i + 1 < breakpoints.length; i++) {
-    const a = breakpoints[i] ?? 0;
-    const b = breakpoints[i + 1] ?? 0;
-    const fa = values[i] ?? 0;
-    const fb = values[i + 1] ?? 0;
-    if (isZero[i] || isZero[i + 1] || Math.sign(fa) === Math.sign(fb)) continue;
-    roots.push(refineBracketedRoot(f, fPrime, a, b));
+  for (let i = 0; i + 1 < count; i++) {
+    if (isZero[i] === 1 || isZero[i + 1] === 1 || Math.sign(values[i] ?? 0) === Math.sign(values[i + 1] ?? 0)) continue;
+    roots.push(refineRoot(new PolynomialWithSlope(q, dq), breakpoints[i] ?? 0, breakpoints[i + 1] ?? 0));
   }
-  roots.sort((x, y) => x - y);
-  return roots.filter((x, i) => i === 0 || x !== roots[i - 1]);
+  roots.sort(ascending);
+  const distinct: number[] = [];
+  for (let i = 0; i < roots.length; i++) if (i === 0 || roots[i] !== roots[i - 1]) distinct.push(roots[i] ?? 0);
+  return distinct;
+}
+
+/** The roots that lie in [lo, hi], in their order. */
+function rootsWithin(roots: readonly number[], lo: number, hi: number): number[] {
+  const kept: number[] = [];
+  for (const x of roots) if (x >= lo && x <= hi) kept.push(x);
+  return kept;
+}
+
+function ascending(x: number, y: number): number {
+  return x - y;
+}
+
+/** A function and its slope, for the bracketed root refinement. */
+interface FunctionWithSlope {
+  value(x: number): number;
+  slope(x: number): number;
+}
+
+/** A polynomial and its derivative as a function with its slope. */
+class PolynomialWithSlope implements FunctionWithSlope {
+  constructor(
+    private readonly q: Polynomial,
+    private readonly dq: Polynomial,
+  ) {}
+
+  value(x: number): number {
+    return evaluatePolynomial(this.q, x);
+  }
+
+  slope(x: number): number {
+    return evaluatePolynomial(this.dq, x);
+  }
+}
+
+/** Two functions as a function with its slope. */
+class FunctionPair implements FunctionWithSlope {
+  constructor(
+    readonly value: (x: number) => number,
+    readonly slope: (x: number) => number,
+  ) {}
 }
 
 /**
@@ -189,10 +232,15 @@ export function refineBracketedRoot(
   lo: number,
   hi: number,
 ): number {
+  return refineRoot(new FunctionPair(f, fPrime), lo, hi);
+}
+
+/** refineBracketedRoot on a function with its slope. */
+function refineRoot(fn: FunctionWithSlope, lo: number, hi: number): number {
   let a = Math.min(lo, hi);
   let b = Math.max(lo, hi);
-  let fa = f(a);
-  let fb = f(b);
+  let fa = fn.value(a);
+  let fb = fn.value(b);
   if (fa === 0) return a;
   if (fb === 0) return b;
   if (Math.sign(fa) === Math.sign(fb)) {
@@ -201,7 +249,7 @@ export function refineBracketedRoot(
   let x = a + (b - a) / 2;
   let previousStep = b - a;
   for (let iteration = 0; iteration < MAX_REFINEMENT_ITERATIONS; iteration++) {
-    const fx = f(x);
+    const fx = fn.value(x);
     if (fx === 0) return x;
     if (Math.sign(fx) === Math.sign(fa)) {
       a = x;
@@ -212,7 +260,7 @@ export function refineBracketedRoot(
     }
     const mid = a + (b - a) / 2;
     if (mid <= a || mid >= b) break; // a and b are adjacent doubles
-    const newton = x - fx / fPrime(x);
+    const newton = x - fx / fn.slope(x);
     const newtonIsUseful =
       Number.isFinite(newton) && newton > a && newton < b && Math.abs(newton - x) <= previousStep / 2;
     const next = newtonIsUseful ? newton : mid;
@@ -221,7 +269,7 @@ export function refineBracketedRoot(
     x = next;
   }
   // Return whichever of the last iterate and the bracket ends has the smallest residual.
-  const fx = f(x);
+  const fx = fn.value(x);
   let best = x;
   let bestResidual = Math.abs(fx);
   if (Math.abs(fa) < bestResidual) {

@@ -24,29 +24,32 @@ export interface PowerBasisCurve {
  * question is local. The polynomial has the nominal degree of the kind (1, 2 or 3),
  * with possibly zero leading coefficients.
  */
-export function powerBasisOf(segment: Segment, origin: Point = { x: 0, y: 0 }): PowerBasisCurve {
-  const coordinate = (pick: (p: Point) => number): Polynomial => {
-    const o = pick(origin);
-    switch (segment.kind) {
-      case 'line': {
-        const a = pick(segment.p0) - o;
-        const b = pick(segment.p1) - o;
-        return [a, b - a];
-      }
-      case 'quad': {
-        const a = pick(segment.p0) - o;
-        const b = pick(segment.p1) - o;
-        const c = pick(segment.p2) - o;
-        return [a, 2 * (b - a), a - 2 * b + c];
-      }
-      case 'cubic': {
-        const a = pick(segment.p0) - o;
-        const b = pick(segment.p1) - o;
-        const c = pick(segment.p2) - o;
-        const d = pick(segment.p3) - o;
-        return [a, 3 * (b - a), 3 * (a - 2 * b + c), d - a + 3 * (b - c)];
-      }
+export function powerBasisOf(segment: Segment, origin: Point = ORIGIN): PowerBasisCurve {
+  return { x: axisPolynomial(segment, 'x', origin.x), y: axisPolynomial(segment, 'y', origin.y) };
+}
+
+const ORIGIN: Point = Object.freeze({ x: 0, y: 0 });
+
+/** One coordinate of the segment as a power-basis polynomial, measured from `o` (no closures: nearest-point queries call this in the fitter's inner loops). */
+function axisPolynomial(segment: Segment, axis: 'x' | 'y', o: number): Polynomial {
+  switch (segment.kind) {
+    case 'line': {
+      const a = segment.p0[axis] - o;
+      const b = segment.p1[axis] - o;
+      return [a, b - a];
     }
-  };
-  return { x: coordinate((p) => p.x), y: coordinate((p) => p.y) };
+    case 'quad': {
+      const a = segment.p0[axis] - o;
+      const b = segment.p1[axis] - o;
+      const c = segment.p2[axis] - o;
+      return [a, 2 * (b - a), a - 2 * b + c];
+    }
+    case 'cubic': {
+      const a = segment.p0[axis] - o;
+      const b = segment.p1[axis] - o;
+      const c = segment.p2[axis] - o;
+      const d = segment.p3[axis] - o;
+      return [a, 3 * (b - a), 3 * (a - 2 * b + c), d - a + 3 * (b - c)];
+    }
+  }
 }
