@@ -35,19 +35,22 @@ export function inlineRunner(): BatchRunner {
   };
 }
 
-/** Runs tasks on `workers` worker threads. */
-export function poolRunner(workers: number, script: WorkerScript = batchWorkerScript()): BatchRunner {
-  const pool = new WorkerPool(workers, script);
+/**
+ * Runs tasks on `workers` worker threads; with `fitHere`, this thread fits letters
+ * too and counts as one of the threads.
+ */
+export function poolRunner(workers: number, script: WorkerScript = batchWorkerScript(), options: { fitHere?: boolean } = {}): BatchRunner {
+  const pool = new WorkerPool(workers, script, options);
   return {
-    parallelism: workers,
+    parallelism: workers + (options.fitHere === true ? 1 : 0),
     run: (task) => pool.run(task),
     runHere: (task) => runBatchTask(task),
-    room: () => pool.room(QUEUED_TASKS_PER_WORKER * workers),
+    room: () => pool.room(QUEUED_TASKS_PER_WORKER * (workers + (options.fitHere === true ? 1 : 0))),
     close: () => pool.close(),
   };
 }
 
-/** The runner for `--jobs jobs`: this thread for 1, worker threads for more. */
+/** The runner for `--jobs jobs`: this thread alone for 1; for more, this thread and jobs − 1 workers. */
 export function runnerForJobs(jobs: number): BatchRunner {
-  return jobs <= 1 ? inlineRunner() : poolRunner(jobs);
+  return jobs <= 1 ? inlineRunner() : poolRunner(jobs - 1, batchWorkerScript(), { fitHere: true });
 }

@@ -1,11 +1,15 @@
 // A fixed set of worker threads (node:worker_threads) running batch tasks
-// (batch-tasks.ts), one task per worker at a time, handed out in the order they were
-// given. The queue of tasks waiting for a worker is what the caller caps: `room()`
-// resolves once fewer than the cap are waiting, so a caller that awaits it before
-// each task never piles up more than the cap (a build does this so sheets are not
-// all decoded, nor all letters' boundaries held, at once).
+// (batch-tasks.ts), handed out in the order they were given. Each worker is sent up
+// to TASKS_IN_FLIGHT_PER_WORKER tasks at once, so it starts the next as soon as it
+// finishes one instead of waiting for this thread to answer. With `fitHere`, this
+// thread fits letters too, one at a time between its other work, so `--jobs 2` is
+// this thread and one worker (one worker's start-up less). The queue of tasks not
+// yet handed out is what the caller caps: `room()` resolves once fewer than the cap
+// are waiting, so a caller that awaits it before each task never piles up more than
+// the cap (a build does this so sheets are not all decoded, nor all letters'
+// boundaries held, at once).
 import { Worker } from 'node:worker_threads';
-import { fromPortableError, type BatchTask, type BatchTaskResult } from './batch-tasks.ts';
+import { fromPortableError, runBatchTask, type BatchTask, type BatchTaskResult } from './batch-tasks.ts';
 import type { WorkerReply, WorkerRequest } from './worker-messages.ts';
 import type { WorkerScript } from './worker-script.ts';
 
@@ -18,11 +22,26 @@ interface Pending {
 
 interface Slot {
   readonly worker: Worker;
-  busy: Pending | null;
+  /** Tasks sent and not yet answered, oldest first. */
+  readonly running: Pending[];
+}
+
+/**
+ * Tasks sent to a worker at once: two lets it start the next the moment it finishes
+ * one, while this thread is busy; more would only hold letters away from a worker
+ * that becomes free sooner.
+ */
+const TASKS_IN_FLIGHT_PER_WORKER = 2;
+
+export interface WorkerPoolOptions {
+  /** Fit letters in this thread too, between its other work. Default false. */
+  readonly fitHere?: boolean;
 }
 
 export class WorkerPool {
   readonly size: number;
+  private readonly fitHere: boolean;
+  private fittingHere = false;
   private readonly slots: Slot[] = [];
   private readonly waiting: Pending[] = [];
   private readonly roomWaiters: Array<{ cap: number; resolve: () => void }> = [];
@@ -31,12 +50,13 @@ export class WorkerPool {
   private closed = false;
 
   /** Starts `size` workers from `script`. */
-  constructor(size: number, script: WorkerScript) {
+  constructor(size: number, script: WorkerScript, options: WorkerPoolOptions = {}) {
     if (!Number.isInteger(size) || size < 1) throw new RangeError(`A worker pool needs a whole number of workers, at least 1, not ${String(size)}.`);
     this.size = size;
+    this.fitHere = options.fitHere ?? false;
     for (let i = 0; i < size; i++) {
       const worker = script.eval === undefined ? new Worker(script.url) : new Worker(script.eval, { eval: true });
-      const slot: Slot = { worker, busy: null };
+      const slot: Slot = { worker, running: [] };
       worker.on('message', (reply: WorkerReply) => this.settle(slot, reply));
       worker.on('error', (error) => this.fail(new Error(`A batch worker stopped: ${error.message}`, { cause: error })));
       worker.on('exit', (code) => {
@@ -76,20 +96,39 @@ export class WorkerPool {
   }
 
   private dispatch(): void {
-    for (const slot of this.slots) {
-      if (slot.busy) continue;
-      const next = this.waiting.shift();
-      if (!next) break;
-      slot.busy = next;
-      slot.worker.postMessage({ id: next.id, task: next.task } satisfies WorkerRequest<BatchTask>);
+    if (this.failure || this.closed) return;
+    // Fill the least loaded worker first, so work spreads evenly.
+    for (let depth = 0; depth < TASKS_IN_FLIGHT_PER_WORKER; depth++) {
+      for (const slot of this.slots) {
+        if (slot.running.length > depth) continue;
+        const next = this.waiting.shift();
+        if (!next) break;
+        slot.running.push(next);
+        slot.worker.postMessage({ id: next.id, task: next.task } satisfies WorkerRequest<BatchTask>);
+      }
+    }
+    if (this.fitHere && !this.fittingHere) {
+      const index = this.waiting.findIndex((pending) => pending.task.kind === 'fit');
+      const next = index < 0 ? undefined : this.waiting.splice(index, 1)[0];
+      if (next) {
+        this.fittingHere = true;
+        // After the pending messages of the workers (setImmediate runs after I/O), so they are answered and given more first.
+        setImmediate(() => {
+          runBatchTask(next.task).then(next.resolve, next.reject).finally(() => {
+            this.fittingHere = false;
+            this.dispatch();
+          });
+        });
+      }
     }
     this.wakeRoomWaiters();
   }
 
   private settle(slot: Slot, reply: WorkerReply): void {
-    const pending = slot.busy;
-    if (!pending || pending.id !== reply.id) return;
-    slot.busy = null;
+    const index = slot.running.findIndex((pending) => pending.id === reply.id);
+    if (index < 0) return;
+    const [pending] = slot.running.splice(index, 1);
+    if (!pending) return;
     if (reply.ok) pending.resolve(reply.result);
     else pending.reject(fromPortableError(reply.error));
     this.dispatch();
@@ -103,10 +142,7 @@ export class WorkerPool {
   }
 
   private rejectAll(error: Error): void {
-    for (const slot of this.slots) {
-      slot.busy?.reject(error);
-      slot.busy = null;
-    }
+    for (const slot of this.slots) for (const pending of slot.running.splice(0)) pending.reject(error);
     for (const pending of this.waiting.splice(0)) pending.reject(error);
   }
 
