@@ -7,7 +7,7 @@ import type { GlyphOutline } from '../outline/index.ts';
 import { contourSegments } from '../outline/index.ts';
 import { boundsOfSegments } from '../geometry/bounds.ts';
 import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, defaultLineGap, spaceGlyph } from '../metrics/index.ts';
-import type { TracedLetter, TracedLetters } from './trace-letters.ts';
+import type { FittedSheet, TracedLetter } from './trace-letters.ts';
 
 /**
  * Fallbacks relative to the cap height when the sheets do not show a metric (common
@@ -64,7 +64,7 @@ function median(values: readonly number[]): number | null {
 }
 
 /** Median over sheets of a measured height, in font units. */
-function measuredUnits(sheets: readonly TracedLetters[], pick: (s: TracedLetters) => number | undefined): number | null {
+function measuredUnits(sheets: readonly FittedSheet[], pick: (s: FittedSheet) => number | undefined): number | null {
   const values = sheets.flatMap((s) => {
     const pixels = pick(s);
     return pixels === undefined ? [] : [pixels * s.unitsPerPixel];
@@ -77,7 +77,7 @@ function measuredUnits(sheets: readonly TracedLetters[], pick: (s: TracedLetters
  * Builds the font contents from fitted sheets. Every assigned, fitted letter becomes a
  * glyph; a character assigned twice is an error naming both places.
  */
-export function draftFont(sheets: readonly TracedLetters[], settings: DraftFontSettings): DraftFont {
+export function draftFont(sheets: readonly FittedSheet[], settings: DraftFontSettings): DraftFont {
   const notes: string[] = [];
   const sidebearing = settings.sidebearing ?? Math.round(settings.capHeight * DEFAULT_SIDEBEARING_PER_CAP_HEIGHT);
   const seen = new Map<string, string>();
