@@ -20,7 +20,7 @@ function installBridge(): void {
     if (reply.error) throw Object.assign(new Error(reply.error.message), { kind: reply.error.kind });
     return reply.result;
   };
-  const intents = ['appInfo', 'listProjects', 'openProject', 'saveProject', 'saveProjectAs', 'autosaveProject', 'findRecoveredWork', 'discardRecoveredWork', 'buildProofFont', 'exportFont', 'listRecentProjects', 'openRecentProject', 'importScan', 'closeWindow'];
+  const intents = ['appInfo', 'listProjects', 'openProject', 'saveProject', 'saveProjectAs', 'autosaveProject', 'findRecoveredWork', 'discardRecoveredWork', 'buildProofFont', 'exportFont', 'listRecentProjects', 'openRecentProject', 'importScan', 'decodeScan', 'closeWindow'];
   const bridge: Record<string, unknown> = Object.fromEntries(intents.map((name) => [name, (args: unknown) => call(name, args)]));
   bridge.reportProjectState = (state: unknown) => {
     reports.push(state);
