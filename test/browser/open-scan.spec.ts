@@ -8,6 +8,7 @@ import sharp from 'sharp';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { DEMO_SHEETS_FOLDER } from '../../electron/demo/demo-files.ts';
+import { discardUntitledWork } from '../support/browser-host-folders.ts';
 import { checkRequirement, CHROMIUM } from '../support/require-tool.ts';
 import { decodeScanBytes } from '../../electron/io/decode-scan.ts';
 import { traceScan } from '../../core/raster/index.ts';
@@ -97,6 +98,9 @@ test.describe('opening a scan in the browser', () => {
     expect(tiff).toEqual(png);
     // The demo's characters land on the letters in reading order on either copy (electron/demo/sheets/demo-sheets.json).
     expect(tiff.characters).toBe(demo.characters.replaceAll(' ', ''));
+    // The unsaved work outlived the autosave delay: leave no recovered work for the next spec's page.
+    await page.close();
+    discardUntitledWork();
   });
 
   test('says what is wrong with a damaged TIFF, in the host’s words, and keeps the app usable', async ({ page }) => {
