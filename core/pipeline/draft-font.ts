@@ -6,16 +6,8 @@
 import type { GlyphOutline } from '../outline/index.ts';
 import { contourSegments } from '../outline/index.ts';
 import { boundsOfSegments } from '../geometry/bounds.ts';
-import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, defaultLineGap, spaceGlyph } from '../metrics/index.ts';
+import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, defaultLineGap, fontHeights, spaceGlyph } from '../metrics/index.ts';
 import type { FittedSheet, TracedLetter } from './trace-letters.ts';
-
-/**
- * Fallbacks relative to the cap height when the sheets do not show a metric (common
- * practice for Latin text faces, from memory): x-height ≈ 0.7 of the cap height,
- * ascender ≈ 1.07 of it.
- */
-const FALLBACK_X_HEIGHT_PER_CAP = 0.7;
-const FALLBACK_ASCENDER_PER_CAP = 750 / 700;
 
 export interface DraftFontSettings {
   readonly familyName: string;
@@ -101,20 +93,21 @@ export function draftFont(sheets: readonly FittedSheet[], settings: DraftFontSet
     }
   });
 
-  const capHeight = Math.round(settings.capHeight);
-  let xHeight = measuredUnits(sheets, (s) => s.metrics.xHeight?.pixels);
-  if (xHeight === null) {
-    xHeight = Math.round(capHeight * FALLBACK_X_HEIGHT_PER_CAP);
-    notes.push(`The x-height was not measured (no x, z, v, w, y or u assigned); ${xHeight} units is a placeholder to change.`);
-  }
+  // The heights the sheets show, and the shared rule for those they do not (core/metrics/font-heights.ts).
+  const heights = fontHeights(
+    {
+      capHeight: settings.capHeight,
+      xHeight: measuredUnits(sheets, (s) => s.metrics.xHeight?.pixels),
+      ascender: measuredUnits(sheets, (s) => s.metrics.ascender?.pixels),
+      descender: measuredUnits(sheets, (s) => s.metrics.descender?.pixels),
+    },
+    settings.unitsPerEm,
+  );
+  const { capHeight, xHeight, ascender, descender, lineGap } = heights;
+  if (heights.placeholders.includes('xHeight')) notes.push(`The x-height was not measured (no x, z, v, w, y or u assigned); ${xHeight} units is a placeholder to change.`);
   const inkBounds = glyphs.map((g) => boundsOfSegments(g.outline.contours.flatMap((c) => contourSegments(c))));
   const inkTop = Math.max(capHeight, ...inkBounds.map((b) => b?.maxY ?? 0));
   const inkBottom = Math.min(0, ...inkBounds.map((b) => b?.minY ?? 0));
-  const ascender = Math.max(measuredUnits(sheets, (s) => s.metrics.ascender?.pixels) ?? Math.round(capHeight * FALLBACK_ASCENDER_PER_CAP), capHeight);
-  const measuredDescender = measuredUnits(sheets, (s) => s.metrics.descender?.pixels);
-  // Without a measured descender, typo ascender − descender spans one em (common practice).
-  const descender = Math.min(measuredDescender ?? ascender - settings.unitsPerEm, 0);
-  const lineGap = defaultLineGap(settings.unitsPerEm, ascender, descender);
   if (inkTop > ascender || inkBottom < descender) notes.push(`Some ink reaches beyond the ascender and descender (${Math.round(inkBottom)} to ${Math.round(inkTop)} units); the font's clipping metrics cover it.`);
   return { familyName: settings.familyName, styleName: settings.styleName, unitsPerEm: settings.unitsPerEm, ascender, descender, lineGap, xHeight, capHeight, glyphs, notes };
 }

@@ -17,6 +17,7 @@ import {
 } from '../../../core/raster/index.ts';
 import { fitTracedSheet } from '../../../core/pipeline/index.ts';
 import { measureSheetMetrics, withGuideHeights } from '../../../core/metrics/index.ts';
+import { fittedMetrics } from './fitted-metrics.ts';
 import type { FittedSheet, TraceReply, TraceRequest, TracedSheet } from './trace-protocol.ts';
 
 let lastScan: TraceScanResult | null = null;
@@ -80,7 +81,6 @@ function fitAssigned(scan: TraceScanResult, state: CorrectedSheet, id: number): 
     onProgress: (fraction, stage) => reply({ type: 'progress', id, fraction, stage }),
   });
   const contoursOf = new Map(assigned.letters.map((l) => [l.index, l.contours]));
-  const units = (height: { pixels: number } | null) => (height ? height.pixels * fitted.unitsPerPixel : null);
   return {
     letters: fitted.letters.map((letter) => ({
       index: letter.index,
@@ -93,12 +93,7 @@ function fitAssigned(scan: TraceScanResult, state: CorrectedSheet, id: number): 
       maxDeviation: letter.report?.maxDeviation ?? null,
       problem: letter.problem,
     })),
-    metrics: {
-      capHeight: (fitted.metrics.capHeight?.pixels ?? fitted.metrics.letterHeightPixels) * fitted.unitsPerPixel,
-      xHeight: units(fitted.metrics.xHeight),
-      ascender: units(fitted.metrics.ascender),
-      descender: units(fitted.metrics.descender),
-    },
+    metrics: fittedMetrics(fitted),
     unitsPerPixel: fitted.unitsPerPixel,
     tolerance: fitted.tolerance,
     notes: fitted.notes,
