@@ -6,7 +6,7 @@
 import type { GlyphOutline } from '../outline/index.ts';
 import { contourSegments } from '../outline/index.ts';
 import { boundsOfSegments } from '../geometry/bounds.ts';
-import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, defaultLineGap, fontHeights, spaceGlyph } from '../metrics/index.ts';
+import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, fontHeights, spaceGlyph } from '../metrics/index.ts';
 import type { FittedSheet, TracedLetter } from './trace-letters.ts';
 
 export interface DraftFontSettings {
