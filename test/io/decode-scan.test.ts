@@ -152,6 +152,13 @@ describe('scan decoding', () => {
     await expectInputError(decodeScanBytes(png.subarray(0, png.length - 40), 'cut.png'), 'image-corrupt', /^cut\.png: .*damaged or incomplete/);
   });
 
+  it('calls a TIFF whose first directory is damaged a damaged TIFF, not "not an image"', async () => {
+    const tiff = await rawGrey(testCard()).tiff().toBuffer();
+    const damaged = Buffer.from(tiff);
+    damaged.writeUInt32LE(0xffff_fff0, 4); // the offset of the first image directory (TIFF 6.0, section 2), pointed past the end
+    await expectInputError(decodeScanBytes(damaged, 'sheet.tif'), 'image-corrupt', /^sheet\.tif: this TIFF file is damaged or incomplete \(.+\)\. Export or scan it again\.$/);
+  });
+
   it('says a text file is not an image it can read', async () => {
     await expectInputError(decodeScanBytes(new TextEncoder().encode('hello, not an image'), 'notes.txt'), 'image-unsupported', /notes\.txt: not an image .* PNG, JPEG, TIFF or WebP/);
   });
