@@ -13,6 +13,7 @@ import { join } from 'node:path';
 import { parseProject, serializeProject } from '../../electron/io/project/project-file.ts';
 import { ProjectError } from '../../electron/io/project/project-error.ts';
 import { mutatedSample } from './byte-mutation.ts';
+import { edited, pathsOf, type Json } from './json-edits.ts';
 import { projectSamples, scanSamples, type Sample } from './fuzz-samples.ts';
 import { expectTypedError, fuzzParameters, fuzzSettings, suiteTimeLimitMs, withinLimits } from './fuzz-settings.ts';
 
@@ -20,30 +21,6 @@ const settings = fuzzSettings('project loading');
 
 /** Deepest nesting a made-up value is wrapped in: far past any real project's (about 6 levels), to find recursion without a bound. */
 const MAX_WRAP_DEPTH = 5000;
-
-type Json = null | boolean | number | string | Json[] | { [key: string]: Json };
-
-/** Every path to a value inside `value`, as key lists. */
-function pathsOf(value: Json, prefix: (string | number)[] = [], out: (string | number)[][] = []): (string | number)[][] {
-  out.push(prefix);
-  if (Array.isArray(value)) value.forEach((item, i) => pathsOf(item, [...prefix, i], out));
-  else if (value !== null && typeof value === 'object') for (const [key, item] of Object.entries(value)) pathsOf(item, [...prefix, key], out);
-  return out;
-}
-
-/** `root` with the value at `path` replaced by `replace(old)`, or removed when it returns undefined. */
-function edited(root: Json, path: (string | number)[], replace: (old: Json) => Json | undefined): Json | undefined {
-  if (path.length === 0) return replace(root);
-  const [head, ...rest] = path;
-  const copy: Json = Array.isArray(root) ? [...root] : { ...(root as Record<string, Json>) };
-  const child = (copy as Record<string | number, Json>)[head!]!;
-  const next = edited(child, rest, replace);
-  if (next === undefined) {
-    if (Array.isArray(copy)) copy.splice(head as number, 1);
-    else delete (copy as Record<string, Json>)[head as string];
-  } else (copy as Record<string | number, Json>)[head!] = next;
-  return copy;
-}
 
 /** A marker put where the deep value goes, replaced in the text: JSON.stringify itself overflows its stack on thousands of levels. */
 const DEEP_MARKER = '\u0000deep\u0000';
@@ -67,7 +44,7 @@ describe('fuzzing project loading', () => {
       .map(({ sample, pick, replacement, depth }) => {
         const paths = pathsOf(sample.json);
         const path = paths[pick % paths.length]!;
-        const changed = edited(sample.json, path, () => (replacement === undefined ? undefined : depth === 0 ? (replacement as Json) : DEEP_MARKER));
+        const changed = edited(sample.json, path, replacement === undefined ? undefined : depth === 0 ? (replacement as Json) : DEEP_MARKER);
         return { name: sample.name, text: changed === undefined ? '' : withDeepValue(JSON.stringify(changed), replacement as Json, depth) };
       });
     const bytesEdit = mutatedSample(samples).map(({ name, bytes }) => ({ name, text: new TextDecoder().decode(bytes) }));

@@ -29,15 +29,18 @@ function quoted(received: string): string {
   return received.length > MAX_QUOTED_CHARACTERS ? `${received.slice(0, MAX_QUOTED_CHARACTERS)}…` : received;
 }
 
-/** The first of `issues` in words; `issues` is valibot's non-empty list. */
-export function schemaProblem(issues: readonly Issue[]): SchemaProblem {
+/**
+ * The first of `issues` in words; `issues` is valibot's non-empty list.
+ * `unexpectedField` is what to say of a field the schema does not have.
+ */
+export function schemaProblem(issues: readonly Issue[], unexpectedField = 'there is no such field in a project'): SchemaProblem {
   const issue = issues[0];
   if (issue === undefined) return { where: null, problem: 'it is not what a project holds' };
   const where = dotPath(issue);
   // A message the schema wrote itself ("a code point at most 10FFFF") is kept; valibot's defaults start "Invalid ".
   if (!issue.message.startsWith(VALIBOT_DEFAULT_MESSAGE)) return { where, problem: issue.message };
   if (issue.input === undefined && issue.kind === 'schema') return { where, problem: 'it is missing' };
-  if (issue.expected === 'never') return { where, problem: 'there is no such field' };
+  if (issue.expected === 'never') return { where, problem: unexpectedField };
   if (issue.kind === 'schema' && issue.expected !== null) return { where, problem: `it must be ${issue.expected}, not ${quoted(issue.received)}` };
   return { where, problem: issue.message };
 }
