@@ -1,18 +1,16 @@
 // The command-line interface as a plain function: argument list in, exit code out,
 // text written through the given streams. `main.ts` wires it to the process; the
 // tests call it directly. A usage mistake exits 2; bad input (a file that will not
-// decode, a page with no ink) exits 1 with a one-line message naming the problem.
+// decode, a page with no ink, any error of electron/error-catalogue.ts) exits 1
+// with a one-line message naming the problem.
 import { EXIT_BAD_INPUT, EXIT_OK, EXIT_USAGE, helpText, versionLine, type CommandSummary } from './usage.ts';
 import { CliUsageError } from './cli-usage-error.ts';
-import { InputError } from '../io/input-error.ts';
-import { RasterError } from '../../core/raster/index.ts';
+import { isUserFacingError } from '../error-catalogue.ts';
 import { boundariesCommand } from './commands/boundaries.ts';
 import { traceCommand } from './commands/trace.ts';
 import { buildCommand } from './commands/build.ts';
 import { importCommand } from './commands/import.ts';
 import { checkCommand } from './commands/check.ts';
-import { ProjectError } from '../io/project/project-error.ts';
-import { OutlineError } from '../../core/outline/index.ts';
 
 /** Where the CLI writes: stdout for results, stderr for messages. */
 export interface CliStreams {
@@ -56,7 +54,7 @@ export async function runCli(argv: readonly string[], streams: CliStreams): Prom
       streams.err(`${error.message}\n`);
       return EXIT_USAGE;
     }
-    if (error instanceof InputError || error instanceof RasterError || error instanceof ProjectError || error instanceof OutlineError) {
+    if (isUserFacingError(error)) {
       streams.err(`stemline ${command.name}: ${oneLine(error.message)}\n`);
       return EXIT_BAD_INPUT;
     }
