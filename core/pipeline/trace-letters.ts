@@ -11,7 +11,7 @@ import type { Point } from '../geometry/vector.ts';
 import { traceScan, type Box, type ScanImage, type TraceScanOptions, type TraceScanResult, type TraceStage } from '../raster/index.ts';
 import { DEFAULT_CAP_HEIGHT_UNITS, measureSheetMetrics, unitsPerPixel as scaleFromMetrics, withGuideHeights, type GuideHeights, type SheetMetrics } from '../metrics/index.ts';
 import { DEFAULT_TOLERANCE, fitGlyph, type FitOptions, type GlyphChain, type GlyphFitReport } from '../fit/index.ts';
-import type { GlyphOutline } from '../outline/index.ts';
+import { contourArea, type GlyphOutline } from '../outline/index.ts';
 
 /**
  * The tolerance never goes below this many scan pixels. Traced boundaries of clean
@@ -128,7 +128,12 @@ export function fitTracedSheet(scan: TraceScanResult, options: Omit<TraceLetters
     const base = { index: letter.index, character: letter.character, row: letter.row, box: letter.box, frame };
     try {
       const fitted = fitGlyph(chains, fitOptions);
-      return { ...base, outline: fitted.outline, report: fitted.report, problem: null };
+      // A stroke narrower than the tolerance can be fitted as its two sides on one line: a contour enclosing nothing, invisible in the font.
+      const contours = fitted.outline.contours.filter((contour) => contourArea(contour) !== 0);
+      if (contours.length === 0) {
+        throw new RangeError(`its ink is too thin to fit: every stroke is narrower than the fitting tolerance (${tolerance.toFixed(1)} units, ${(tolerance / scale).toFixed(2)} px) and came out with no area. Scan at a higher resolution, or lower the tolerance.`);
+      }
+      return { ...base, outline: contours.length === fitted.outline.contours.length ? fitted.outline : { ...fitted.outline, contours }, report: fitted.report, problem: null };
     } catch (error) {
       const problem = `Letter ${letter.index + 1}${letter.character ? ` (${letter.character})` : ''} could not be fitted: ${error instanceof Error ? error.message : String(error)}`;
       notes.push(problem);
