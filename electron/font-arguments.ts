@@ -6,6 +6,7 @@
 import * as v from 'valibot';
 import { HandlerError } from './handler-error.ts';
 import { exceedsJsonSize } from './json-size.ts';
+import { schemaProblem } from './io/project/schema-issue.ts';
 import { MAX_FILE_NAME_LENGTH } from './places/workspace-files.ts';
 import { projectSchema } from './io/project/project-schema.ts';
 import type { HostIntents, IntentName } from './api-contract.ts';
@@ -42,10 +43,8 @@ export function fontArguments<K extends FontIntent>(intent: K, raw: unknown): Ho
   }
   const result = v.safeParse(SCHEMAS[intent], raw ?? {});
   if (!result.success) {
-    const issue = result.issues[0];
-    const where = issue ? (v.getDotPath(issue) ?? 'the arguments') : 'the arguments';
-    const problem = issue?.expected === 'never' ? 'this request does not take it' : (issue?.message ?? 'invalid value');
-    throw new HandlerError('bad-arguments', `The request "${intent satisfies IntentName}" was refused: ${where} is wrong (${problem}). Undo the last edit and try again; if it persists, please report it.`);
+    const { where, problem } = schemaProblem(result.issues, 'this request does not take it');
+    throw new HandlerError('bad-arguments', `The request "${intent satisfies IntentName}" was refused: ${where ?? 'the arguments'} is wrong (${problem}). Undo the last edit and try again; if it persists, please report it.`);
   }
   return result.output as HostIntents[K]['args'];
 }

@@ -11,6 +11,7 @@ import { MAX_PROJECT_BYTES } from './io/project/project-file.ts';
 import { embeddedScanBytes } from './io/project/embedded-scan.ts';
 import type { HostIntents, IntentName } from './api-contract.ts';
 import { exceedsJsonSize } from './json-size.ts';
+import { schemaProblem } from './io/project/schema-issue.ts';
 
 const handleSchema = v.pipe(v.string(), v.regex(HANDLE_PATTERN, 'a project handle the host gave'));
 const nameSchema = v.pipe(v.string(), v.minLength(1, 'a file name'), v.maxLength(MAX_FILE_NAME_LENGTH, `a file name of at most ${MAX_FILE_NAME_LENGTH} characters`));
@@ -44,10 +45,9 @@ function checkedProject(intent: IntentName, raw: unknown): ProjectData {
   }
   const result = v.safeParse(projectSchema, raw);
   if (!result.success) {
-    const issue = result.issues[0];
-    const path = issue ? v.getDotPath(issue) : null;
+    const { where: path, problem } = schemaProblem(result.issues, 'this request does not take it');
     const where = path ? `project.${path}` : 'the project';
-    throw new HandlerError('bad-arguments', `The project could not be written: ${where} is wrong (${issue?.message ?? 'invalid value'}). Undo the last edit and try again; if it persists, please report it.`);
+    throw new HandlerError('bad-arguments', `The project could not be written: ${where} is wrong (${problem}). Undo the last edit and try again; if it persists, please report it.`);
   }
   result.output.scans.forEach((scan, index) => {
     if (scan.embedded !== undefined && embeddedScanBytes(scan.embedded) === undefined) {
@@ -61,9 +61,8 @@ function checkedProject(intent: IntentName, raw: unknown): ProjectData {
 export function projectArguments<K extends ProjectIntent>(intent: K, raw: unknown): HostIntents[K]['args'] {
   const result = v.safeParse(SCHEMAS[intent], raw ?? {});
   if (!result.success) {
-    const issue = result.issues[0];
-    const where = issue ? (v.getDotPath(issue) ?? 'the arguments') : 'the arguments';
-    throw refused(intent, where, issue?.expected === 'never' ? 'this request does not take it' : (issue?.message ?? 'invalid value'));
+    const { where, problem } = schemaProblem(result.issues, 'this request does not take it');
+    throw refused(intent, where ?? 'the arguments', problem);
   }
   const args = result.output as Record<string, unknown>;
   if ('project' in args) args.project = checkedProject(intent, args.project);

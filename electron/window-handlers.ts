@@ -6,6 +6,7 @@ import * as v from 'valibot';
 import type { HostIntents, ProjectState } from './api-contract.ts';
 import type { HostContext } from './host-context.ts';
 import { HandlerError } from './handler-error.ts';
+import { schemaProblem } from './io/project/schema-issue.ts';
 
 /** Longest project title taken: a file name (255) with room to spare, well under what a title bar shows. */
 export const MAX_TITLE_LENGTH = 1024;
@@ -22,9 +23,8 @@ const projectStateSchema = v.strictObject({
 export function projectStateArguments(raw: unknown): ProjectState {
   const result = v.safeParse(projectStateSchema, raw);
   if (!result.success) {
-    const issue = result.issues[0];
-    const where = issue ? (v.getDotPath(issue) ?? 'the arguments') : 'the arguments';
-    throw new HandlerError('bad-arguments', `The request "reportProjectState" was refused: ${where} is wrong (${issue?.expected === 'never' ? 'this request does not take it' : (issue?.message ?? 'invalid value')}). This is a bug in the app: please report it.`);
+    const { where, problem } = schemaProblem(result.issues, 'this request does not take it');
+    throw new HandlerError('bad-arguments', `The request "reportProjectState" was refused: ${where ?? 'the arguments'} is wrong (${problem}). This is a bug in the app: please report it.`);
   }
   return result.output;
 }

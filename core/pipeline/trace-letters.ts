@@ -11,7 +11,7 @@ import type { Point } from '../geometry/vector.ts';
 import { traceScan, type Box, type ScanImage, type TraceScanOptions, type TraceScanResult, type TraceStage } from '../raster/index.ts';
 import { DEFAULT_CAP_HEIGHT_UNITS, measureSheetMetrics, unitsPerPixel as scaleFromMetrics, withGuideHeights, type GuideHeights, type SheetMetrics } from '../metrics/index.ts';
 import { DEFAULT_TOLERANCE, fitGlyph, type FitOptions, type GlyphChain, type GlyphFitReport } from '../fit/index.ts';
-import type { GlyphOutline } from '../outline/index.ts';
+import { contourArea, type GlyphOutline } from '../outline/index.ts';
 
 /**
  * The tolerance never goes below this many scan pixels. Traced boundaries of clean
@@ -168,7 +168,15 @@ export function planSheetFit(scan: FittableScan, options: Omit<TraceLettersOptio
 export function fitLetterJob(job: LetterFitJob): LetterFitOutcome {
   try {
     const fitted = fitGlyph(job.chains, job.options);
-    return { ok: true, outline: fitted.outline, report: fitted.report };
+    // A stroke narrower than the tolerance can be fitted as its two sides on one line: a contour enclosing nothing, invisible in the font.
+    const contours = fitted.outline.contours.filter((contour) => contourArea(contour) !== 0);
+    if (contours.length === 0) {
+      const tolerance = job.options.tolerance ?? DEFAULT_TOLERANCE;
+      const pixels = job.options.pixelSize ? `, ${(tolerance / job.options.pixelSize).toFixed(2)} px` : '';
+      throw new RangeError(`its ink is too thin to fit: every stroke is narrower than the fitting tolerance (${tolerance.toFixed(1)} units${pixels}) and came out with no area. Scan at a higher resolution, or lower the tolerance.`);
+    }
+    const outline = contours.length === fitted.outline.contours.length ? fitted.outline : { ...fitted.outline, contours };
+    return { ok: true, outline, report: fitted.report };
   } catch (error) {
     return { ok: false, message: error instanceof Error ? error.message : String(error) };
   }

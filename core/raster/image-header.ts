@@ -32,6 +32,22 @@ function ascii(bytes: Uint8Array, offset: number, length: number): string {
   return String.fromCharCode(...bytes.subarray(offset, offset + length));
 }
 
+/** Names of the formats, as a message calls them. */
+export const HEADER_FORMAT_NAMES: Readonly<Record<HeaderFormat, string>> = { png: 'PNG', jpeg: 'JPEG', webp: 'WebP', tiff: 'TIFF' };
+
+/**
+ * The format `bytes` start like, by its signature alone (the first 12 bytes), or
+ * null: so a file whose header is damaged can be called a damaged PNG, not "not an
+ * image".
+ */
+export function formatBySignature(bytes: Uint8Array): HeaderFormat | null {
+  if (startsWith(bytes, PNG_SIGNATURE)) return 'png';
+  if (bytes[0] === 0xff && bytes[1] === 0xd8 && bytes[2] === 0xff) return 'jpeg';
+  if (bytes.length >= 12 && ascii(bytes, 0, 4) === 'RIFF' && ascii(bytes, 8, 4) === 'WEBP') return 'webp';
+  if (bytes.length >= 4 && (ascii(bytes, 0, 4) === 'II*\0' || ascii(bytes, 0, 4) === 'MM\0*')) return 'tiff';
+  return null;
+}
+
 /** The header of `bytes`, or null when the format is not one of the four above or the header is cut short. */
 export function readImageHeader(bytes: Uint8Array): ImageHeader | null {
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);

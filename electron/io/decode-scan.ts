@@ -7,7 +7,7 @@ import sharp, { type Metadata } from 'sharp';
 import { basename } from 'node:path';
 import { InputError } from './input-error.ts';
 import { readInputFile } from './read-input-file.ts';
-import { readImageHeader } from '../../core/raster/image-header.ts';
+import { formatBySignature, HEADER_FORMAT_NAMES, readImageHeader } from '../../core/raster/image-header.ts';
 
 /**
  * Largest image accepted, in pixels. 200 megapixels is a US-letter page at about
@@ -74,6 +74,12 @@ async function readHeader(bytes: Uint8Array, name: string): Promise<Metadata> {
     metadata = await sharp(bytes, { limitInputPixels: false }).metadata();
   } catch (error) {
     const reason = describeSharpError(error);
+    const signature = formatBySignature(bytes);
+    if (signature !== null) {
+      // libvips calls a file whose header it cannot parse "unsupported"; one that starts like a format it reads is damaged.
+      const why = /unsupported image format/i.test(reason) ? 'its header is damaged' : reason;
+      throw new InputError('image-corrupt', name, `${name}: this ${HEADER_FORMAT_NAMES[signature]} file is damaged or incomplete (${why}). Export or scan it again.`);
+    }
     if (/unsupported image format/i.test(reason)) {
       throw new InputError('image-unsupported', name, `${name}: not an image Stemline can read. Use PNG, JPEG, TIFF or WebP.`);
     }

@@ -11,7 +11,8 @@ export type InputErrorKind =
   | 'image-too-large'
   | 'image-empty'
   | 'font-unreadable'
-  | 'font-unsupported';
+  | 'font-unsupported'
+  | 'font-too-large';
 
 export class InputError extends Error {
   readonly kind: InputErrorKind;

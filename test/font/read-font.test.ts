@@ -5,7 +5,11 @@
 // fontTools 4.38 (Debian python3-fonttools; its pen elevates quadratics to cubics
 // exactly) and Debian's Cantarell, Linux Libertine and DejaVu Sans fonts.
 import { describe, expect, it } from 'vitest';
-import { readFileSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { DEBIAN_PYTHON } from './fonttools.ts';
 import { InputError } from '../../electron/io/input-error.ts';
 import { readFont, type ReadFont } from '../../electron/io/font/read-font.ts';
 import { writeOtf } from '../../electron/io/font/write-font.ts';
@@ -172,5 +176,15 @@ describe('files that are not readable fonts', () => {
     const damaged = font.slice();
     for (let i = 200; i < damaged.length; i++) damaged[i] = (i * 131) & 0xff;
     expectInputError(damaged, 'font-unreadable', /damaged/);
+  });
+});
+
+describeWith('a TrueType font that stores no glyph names', [FONTTOOLS_PYTHON, REFERENCE_FONTS.dejavuSans], () => {
+  it('opens with names made from its characters (a format 3 post table, as many shipped TrueType fonts have)', () => {
+    const out = join(mkdtempSync(join(tmpdir(), 'stemline-post3-')), 'subset.ttf');
+    // fontTools' subsetter writes 'post' format 3 (no names) unless asked to keep them (fontTools.subset --help, --glyph-names).
+    execFileSync(DEBIAN_PYTHON, ['-m', 'fontTools.subset', REFERENCE_FONTS.dejavuSans.path, '--text=Ag', `--output-file=${out}`]);
+    const font = readFont(readFileSync(out), 'subset.ttf');
+    expect(font.glyphs.map((g) => g.name)).toEqual(['.notdef', 'A', 'g']);
   });
 });

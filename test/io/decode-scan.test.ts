@@ -152,6 +152,13 @@ describe('scan decoding', () => {
     await expectInputError(decodeScanBytes(png.subarray(0, png.length - 40), 'cut.png'), 'image-corrupt', /^cut\.png: .*damaged or incomplete/);
   });
 
+  it('calls a TIFF whose first directory is damaged a damaged TIFF, not "not an image"', async () => {
+    const tiff = await rawGrey(testCard()).tiff().toBuffer();
+    const damaged = Buffer.from(tiff);
+    damaged.writeUInt32LE(0xffff_fff0, 4); // the offset of the first image directory (TIFF 6.0, section 2), pointed past the end
+    await expectInputError(decodeScanBytes(damaged, 'sheet.tif'), 'image-corrupt', /^sheet\.tif: this TIFF file is damaged or incomplete \(.+\)\. Export or scan it again\.$/);
+  });
+
   it('says a text file is not an image it can read', async () => {
     await expectInputError(decodeScanBytes(new TextEncoder().encode('hello, not an image'), 'notes.txt'), 'image-unsupported', /notes\.txt: not an image .* PNG, JPEG, TIFF or WebP/);
   });
@@ -174,5 +181,50 @@ describe('scan decoding', () => {
     );
     expect(() => checkPixelBudget(14_142, 14_142, undefined, 'square.png')).not.toThrow();
     expect(PIXEL_BUDGET).toBe(200_000_000);
+  });
+});
+
+/**
+ * A TIFF of a header and nothing else, claiming `width` × `height` 1-bit pixels at
+ * `dpi` (TIFF 6.0: a little-endian header, one IFD of tags in ascending order, two
+ * RATIONAL resolutions after it; the one strip it names is absent).
+ */
+function tiffClaiming(width: number, height: number, dpi: number): Uint8Array {
+  const SHORT = 3;
+  const LONG = 4;
+  const RATIONAL = 5;
+  const tags: [number, number, number][] = [
+    [256, LONG, width], [257, LONG, height], [258, SHORT, 1], [259, SHORT, 4], [262, SHORT, 0],
+    [273, LONG, 0], [278, LONG, height], [279, LONG, 0], [282, RATIONAL, 0], [283, RATIONAL, 0], [296, SHORT, 2],
+  ];
+  const ifdAt = 8;
+  const rationalsAt = ifdAt + 2 + tags.length * 12 + 4;
+  const bytes = new Uint8Array(rationalsAt + 16);
+  const view = new DataView(bytes.buffer);
+  bytes.set([0x49, 0x49, 0x2a, 0x00]);
+  view.setUint32(4, ifdAt, true);
+  view.setUint16(ifdAt, tags.length, true);
+  tags.forEach(([tag, type, value], i) => {
+    const at = ifdAt + 2 + i * 12;
+    view.setUint16(at, tag, true);
+    view.setUint16(at + 2, type, true);
+    view.setUint32(at + 4, 1, true);
+    if (type === RATIONAL) view.setUint32(at + 8, rationalsAt + (tag === 282 ? 0 : 8), true);
+    else if (type === SHORT) view.setUint16(at + 8, value, true);
+    else view.setUint32(at + 8, value, true);
+  });
+  for (const at of [rationalsAt, rationalsAt + 8]) {
+    view.setUint32(at, dpi, true);
+    view.setUint32(at + 4, 1, true);
+  }
+  return bytes;
+}
+
+describe('decompression bombs', () => {
+  it('refuses a 200-byte TIFF claiming 48,000 × 60,000 pixels at 1,200 dpi, saying its size and the resolution that would fit', async () => {
+    const bomb = tiffClaiming(48_000, 60_000, 1200);
+    expect(bomb.length).toBeLessThan(200);
+    // 48,000 × 60,000 = 2.88 gigapixels; 40 × 50 in = 1,016 × 1,270 mm; √(200 / 2,880) × 1,200 dpi = 316, rounded down to 300.
+    await expectInputError(decodeScanBytes(bomb, 'poster.tif'), 'image-too-large', /^poster\.tif is 48,000 × 60,000 pixels \(2\.9 gigapixels\); Stemline reads up to 200 megapixels: this 1016 × 1270 mm page fits at 300 dpi or lower\.$/);
   });
 });

@@ -2,7 +2,7 @@
 // file is refused with a message naming the file and the wrong field; autosave offers
 // the latest work after a crash; and saving never leaves a half-written file.
 import { describe, expect, it } from 'vitest';
-import { mkdtempSync, readFileSync, writeFileSync, utimesSync, existsSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync, utimesSync, existsSync, truncateSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { autosaveProject, findRecovery, loadProject, parseProject, recoveryPathFor, saveProject, serializeProject } from '../../electron/io/project/project-file.ts';
@@ -110,5 +110,40 @@ describe('project files', () => {
     utimesSync(recoveryPathFor(path), later, later);
     expect(await findRecovery(path)).toBeNull();
     expect((await loadProject(path)).glyphs).toHaveLength(2);
+  });
+});
+
+describe('projects too large or too deep to be real', () => {
+  const refusal = async (work: () => Promise<unknown> | unknown): Promise<ProjectError> => {
+    try {
+      await work();
+    } catch (error) {
+      expect(error).toBeInstanceOf(ProjectError);
+      return error as ProjectError;
+    }
+    throw new Error('it was opened');
+  };
+
+  it('refuses a file over 512 MiB from its size alone, before reading it', async () => {
+    const path = join(mkdtempSync(join(tmpdir(), 'stemline-huge-')), 'huge.stemline');
+    writeFileSync(path, '');
+    truncateSync(path, 600 * 2 ** 20); // a sparse file: nothing is written to disk
+    const error = await refusal(() => loadProject(path));
+    expect(error.kind).toBe('project-too-large');
+    expect(error.message).toBe('huge.stemline is 600 MiB; a Stemline project is at most 512 MiB. This is not a project file.');
+  });
+
+  it('refuses glyphs nested 100,000 arrays deep, naming the field and quoting none of it', async () => {
+    const depth = 100_000;
+    const text = serializeProject(newProject('Deep')).replace('"glyphs": []', `"glyphs": ${'['.repeat(depth)}${']'.repeat(depth)}`);
+    const error = await refusal(() => parseProject(text, 'deep.stemline'));
+    expect(error.kind).toBe('project-invalid');
+    expect(error.message).toMatch(/^deep\.stemline: glyphs\.0\.unicodes is wrong: it is missing\. Fix that field or open the recovery copy\.$/);
+  });
+
+  it('refuses a format version nested deep with a short message (it is not written out)', async () => {
+    const text = `{"format":"stemline-project","formatVersion":${'['.repeat(50_000)}${']'.repeat(50_000)}}`;
+    const error = await refusal(() => parseProject(text, 'deep.stemline'));
+    expect(error.message).toBe('deep.stemline: "formatVersion" must be a whole number from 1; it is a value nested too deeply to show.');
   });
 });

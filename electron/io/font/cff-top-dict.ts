@@ -4,7 +4,8 @@
 // way to set it, nor the underline values. Changing DICT operands can change the
 // DICT's length, which moves everything after it, so the absolute offsets the Top
 // DICT holds (charset, CharStrings, Private) are moved by the same amount. Only the
-// layout opentype.js writes is supported: one font, no CID font dicts.
+// layout opentype.js writes is supported: one font, no CID font dicts. The reader
+// also checks here that a CFF table's INDEXes are sound before opentype.js walks them.
 
 /** CFF DICT operators used here (TN #5176, Table 9 "Top DICT Operator Entries"); two-byte operators as 1200 + second byte. */
 const OPERATOR = {
@@ -275,4 +276,71 @@ export function rewriteTopDict(cff: Uint8Array, changes: TopDictChanges): Uint8A
   out.set(newTopDictIndex, topDictIndex.start);
   out.set(cff.subarray(topDictIndex.end), topDictIndex.start + newTopDictIndex.length);
   return out;
+}
+
+/** Largest offSize of an INDEX (TN #5176, Table 2 "Type": OffSize 1–4). */
+const MAX_OFF_SIZE = 4;
+/** The Private DICT operator Subrs: the local subroutines' INDEX, offset from the Private DICT (TN #5176, Table 23). */
+const PRIVATE_SUBRS_OPERATOR = 19;
+
+/**
+ * Checks the INDEX at `start` of `cff` (TN #5176, section 5): offSize 1–4, offsets
+ * from 1 that never decrease and end inside the table. Returns where it ends.
+ * opentype.js copies every item of every INDEX byte by byte, so an INDEX whose
+ * offsets jump back and forth would have it copy the table tens of thousands of
+ * times; a checked INDEX holds at most the table's bytes.
+ */
+function checkIndex(cff: Uint8Array, start: number, what: string): number {
+  if (!Number.isInteger(start) || start < 0) throw new RangeError(`the ${what} INDEX has no valid offset`);
+  if (start + 2 > cff.length) throw new RangeError(`the ${what} INDEX starts past the end of the table`);
+  const count = readOffset(cff, start, 2);
+  if (count === 0) return start + 2;
+  const offSize = cff[start + 2] ?? 0;
+  if (offSize < 1 || offSize > MAX_OFF_SIZE) throw new RangeError(`the ${what} INDEX has offsets of ${offSize} bytes`);
+  const offsetsAt = start + INDEX_HEADER_BYTES;
+  if (offsetsAt + (count + 1) * offSize > cff.length) throw new RangeError(`the ${what} INDEX runs past the end of the table`);
+  const dataBase = offsetsAt + (count + 1) * offSize - 1;
+  let previous = readOffset(cff, offsetsAt, offSize);
+  if (previous !== 1) throw new RangeError(`the ${what} INDEX does not start at offset 1`);
+  for (let i = 1; i <= count; i++) {
+    const offset = readOffset(cff, offsetsAt + i * offSize, offSize);
+    if (offset < previous) throw new RangeError(`the ${what} INDEX has offsets that go backwards`);
+    previous = offset;
+  }
+  if (dataBase + previous > cff.length) throw new RangeError(`the ${what} INDEX runs past the end of the table`);
+  return dataBase + previous;
+}
+
+/**
+ * Checks the INDEXes of a CFF version 1 table a reader walks: Name, Top DICT,
+ * String, Global Subrs, CharStrings and the local Subrs. Throws RangeError saying
+ * which is damaged.
+ */
+export function checkCffIndexes(cff: Uint8Array): void {
+  const headerSize = cff[2];
+  if (cff[0] !== 1 || headerSize === undefined) throw new RangeError('it is not a CFF version 1 table');
+  const nameEnd = checkIndex(cff, headerSize, 'Name');
+  const topDictEnd = checkIndex(cff, nameEnd, 'Top DICT');
+  const stringEnd = checkIndex(cff, topDictEnd, 'String');
+  checkIndex(cff, stringEnd, 'Global Subrs');
+  for (const topDict of readIndex(cff, nameEnd).items) {
+    let entries: DictEntry[];
+    try {
+      entries = parseDict(topDict);
+    } catch {
+      throw new RangeError('its Top DICT is damaged');
+    }
+    const charStrings = entries.find((e) => e.operator === OPERATOR.charStrings)?.values[0];
+    if (charStrings !== undefined) checkIndex(cff, charStrings, 'CharStrings');
+    const [privateSize, privateOffset] = entries.find((e) => e.operator === OPERATOR.private)?.values ?? [];
+    if (privateSize === undefined || privateOffset === undefined || privateOffset + privateSize > cff.length || privateSize < 0 || privateOffset < 0) continue;
+    let privateEntries: DictEntry[];
+    try {
+      privateEntries = parseDict(cff.subarray(privateOffset, privateOffset + privateSize));
+    } catch {
+      throw new RangeError('its Private DICT is damaged');
+    }
+    const subrs = privateEntries.find((e) => e.operator === PRIVATE_SUBRS_OPERATOR)?.values[0];
+    if (subrs !== undefined) checkIndex(cff, privateOffset + subrs, 'local Subrs');
+  }
 }

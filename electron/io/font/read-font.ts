@@ -15,6 +15,9 @@ import { DEFAULT_WEIGHT_CLASS, type FontGlyph, type FontSource } from './font-mo
 import { glyphNameForCodePoint, isValidGlyphName, NOTDEF_GLYPH_NAME } from './glyph-names.ts';
 import { tightBounds } from './integer-outline.ts';
 import { pathToOutline } from './path-to-outline.ts';
+import { woffToSfnt } from './woff-to-sfnt.ts';
+import { readTableRecords } from './sfnt-tables.ts';
+import { checkCffIndexes } from './cff-top-dict.ts';
 
 /**
  * A glyph as read: a FontGlyph with its index, all its characters and a name that is
@@ -53,14 +56,55 @@ const MAX_WEIGHT_CLASS = 1000;
 /** Glyph names made up for unnamed glyphs: "glyph" and five digits of the index (common practice). */
 const GLYPH_INDEX_DIGITS = 5;
 
+/**
+ * What went wrong inside opentype.js, in words: its own checks throw an Error whose
+ * message names the table ("Unsupported OpenType version"), but data it did not
+ * check ends in a TypeError or RangeError about its internals, which says nothing
+ * to a person; those are reported as tables that contradict each other or point
+ * past their end.
+ */
+/** Words that show a parser message is about its own objects, not the font ("Object [object Object] already has key 0"). */
+const PARSER_INTERNALS = /\[object |\bundefined\b|\bnull\b|\bNaN\b/;
+
+function parserReason(error: unknown): string {
+  if (error instanceof RangeError) return 'a table points past the end of its data';
+  if (error instanceof TypeError || !(error instanceof Error) || PARSER_INTERNALS.test(error.message)) return 'its tables contradict each other';
+  return error.message;
+}
+
+/** The CFF major version this reader takes (Adobe TN #5176, section 6 "Header": major 1). */
+const CFF_MAJOR_VERSION = 1;
+
+/**
+ * Refuses a 'CFF ' table whose header claims another major version, and CFF2
+ * (variable) outlines: opentype.js then reads the table as CFF2, whose INDEX counts
+ * are 32-bit, and a damaged count of billions keeps it allocating for minutes. And
+ * one whose INDEXes are damaged (cff-top-dict.ts, checkCffIndexes).
+ */
+function checkCffTable(sfnt: Uint8Array, fileName: string): void {
+  const { records } = readTableRecords(sfnt);
+  if (records.some((r) => r.tag === 'CFF2')) {
+    throw new InputError('font-unsupported', fileName, `${fileName}: its outlines are CFF2 (a variable font); Stemline reads CFF (.otf) and TrueType (.ttf) outlines. Export a static instance of the font first.`);
+  }
+  const cff = records.find((r) => r.tag === 'CFF ');
+  if (cff !== undefined && sfnt[cff.offset] !== CFF_MAJOR_VERSION) {
+    throw new InputError('font-unreadable', fileName, `${fileName}: the font is damaged: its 'CFF ' table says it is version ${sfnt[cff.offset] ?? 'none'}, not ${CFF_MAJOR_VERSION}. Export it again or try another copy.`);
+  }
+  if (cff === undefined) return;
+  try {
+    checkCffIndexes(sfnt.subarray(cff.offset, cff.offset + cff.length));
+  } catch (error) {
+    throw new InputError('font-unreadable', fileName, `${fileName}: the font is damaged: in its 'CFF ' table, ${error instanceof Error ? error.message : String(error)}. Export it again or try another copy.`);
+  }
+}
+
 function parse(bytes: Uint8Array, fileName: string): Font {
   // opentype.parse reads from offset 0 of the ArrayBuffer, so a view into a pooled buffer must be copied out.
   const buffer = bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer;
   try {
     return opentype.parse(buffer);
   } catch (error) {
-    const reason = error instanceof Error ? error.message : String(error);
-    throw new InputError('font-unreadable', fileName, `${fileName}: the font is damaged and cannot be read (${reason}). Export it again or try another copy.`);
+    throw new InputError('font-unreadable', fileName, `${fileName}: the font is damaged and cannot be read (${parserReason(error)}). Export it again or try another copy.`);
   }
 }
 
@@ -74,8 +118,12 @@ function outlineOf(glyph: Glyph, fileName: string, truetype: boolean): GlyphOutl
   try {
     commands = glyph.path.commands;
   } catch (error) {
-    const reason = error instanceof Error ? error.message : String(error);
-    throw new InputError('font-unreadable', fileName, `${fileName}: the outline of glyph ${glyph.index} is damaged (${reason}). Export the font again.`);
+    throw new InputError('font-unreadable', fileName, `${fileName}: the outline of glyph ${glyph.index} is damaged (${parserReason(error)}). Export the font again.`);
+  }
+  // A charstring that pops more operands than it pushed gives opentype.js NaN coordinates rather than an error.
+  const numbers = commands.flatMap((c) => Object.values(c).filter((value): value is number => typeof value === 'number'));
+  if (!numbers.every(Number.isFinite)) {
+    throw new InputError('font-unreadable', fileName, `${fileName}: the outline of glyph ${glyph.index} is damaged (a point has no position). Export the font again.`);
   }
   return pathToOutline(commands, truetype ? 'reversed' : 'as-drawn');
 }
@@ -92,8 +140,51 @@ function heightFromGlyph(glyphs: readonly ReadGlyph[], character: string): numbe
  * TrueType; 'font-unreadable' for files that are not fonts, are cut short or damaged.
  */
 export function readFont(bytes: Uint8Array, fileName: string): ReadFont {
+  return withoutParserChatter(() => {
+    try {
+      return readFontQuietly(bytes, fileName);
+    } catch (error) {
+      if (error instanceof InputError) throw error;
+      // opentype.js parses some tables lazily, so damage can surface after parse() returned.
+      throw new InputError('font-unreadable', fileName, `${fileName}: the font is damaged and cannot be read (${parserReason(error)}). Export it again or try another copy.`);
+    }
+  });
+}
+
+/** The font's English name of `kind`, or undefined when it has none or its 'name' table is damaged. */
+function englishName(font: Font, kind: Parameters<Font['getEnglishName']>[0]): string | undefined {
+  try {
+    const name = font.getEnglishName(kind);
+    return typeof name === 'string' && name.trim() !== '' ? name : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+/**
+ * Runs `read` with console output switched off: opentype.js logs every odd table
+ * or charstring operator of a damaged font to the console (with stack traces),
+ * which would bury the CLI's one-line message. What matters is reported by the
+ * reader's own errors.
+ */
+function withoutParserChatter<T>(read: () => T): T {
+  const saved = { log: console.log, warn: console.warn, error: console.error };
+  const silent = () => undefined;
+  console.log = silent;
+  console.warn = silent;
+  console.error = silent;
+  try {
+    return read();
+  } finally {
+    Object.assign(console, saved);
+  }
+}
+
+function readFontQuietly(bytes: Uint8Array, fileName: string): ReadFont {
   const container = identifyFontContainer(bytes, fileName);
-  const font = parse(bytes, fileName);
+  const sfnt = container === 'woff' ? woffToSfnt(bytes, fileName) : bytes;
+  checkCffTable(sfnt, fileName);
+  const font = parse(sfnt, fileName);
   const outlineFormat = font.outlinesFormat;
   if (outlineFormat !== 'cff' && outlineFormat !== 'truetype') {
     throw new InputError('font-unsupported', fileName, `${fileName}: its outlines are in the "${outlineFormat}" format; Stemline reads CFF (.otf) and TrueType (.ttf) outlines.`);
@@ -107,7 +198,8 @@ export function readFont(bytes: Uint8Array, fileName: string): ReadFont {
     const codePoints = index === 0 ? [] : glyph.unicodes.filter(isEncodable).sort((a, b) => a - b);
     const primary = codePoints[0];
     const fontName = index === 0 ? NOTDEF_GLYPH_NAME : glyph.name;
-    let name = fontName !== null && isValidGlyphName(fontName) && !usedNames.has(fontName) ? fontName : primary !== undefined ? glyphNameForCodePoint(primary) : '';
+    // A TrueType font with a format 3 'post' table stores no glyph names: opentype.js then gives none (undefined).
+    let name = typeof fontName === 'string' && isValidGlyphName(fontName) && !usedNames.has(fontName) ? fontName : primary !== undefined ? glyphNameForCodePoint(primary) : '';
     if (name === '' || usedNames.has(name)) name = `glyph${String(index).padStart(GLYPH_INDEX_DIGITS, '0')}`;
     usedNames.add(name);
     const outline = outlineOf(glyph, fileName, outlineFormat === 'truetype');
@@ -117,7 +209,7 @@ export function readFont(bytes: Uint8Array, fileName: string): ReadFont {
       character: primary === undefined ? '' : String.fromCodePoint(primary),
       characters: codePoints.map((c) => String.fromCodePoint(c)),
       outline,
-      advanceWidth: glyph.advanceWidth ?? 0,
+      advanceWidth: Number.isFinite(glyph.advanceWidth) ? glyph.advanceWidth! : 0,
     });
   }
 
@@ -130,8 +222,13 @@ export function readFont(bytes: Uint8Array, fileName: string): ReadFont {
   const xHeight = hasHeights && (os2.sxHeight ?? 0) > 0 ? os2.sxHeight! : heightFromGlyph(glyphs, 'x');
   const capHeight = hasHeights && (os2.sCapHeight ?? 0) > 0 ? os2.sCapHeight! : heightFromGlyph(glyphs, 'H');
   const weight = os2?.usWeightClass;
-  const familyName = font.getEnglishName('preferredFamily') ?? font.getEnglishName('fontFamily') ?? basename(fileName).replace(/\.[^.]*$/, '');
-  const styleName = font.getEnglishName('preferredSubfamily') ?? font.getEnglishName('fontSubfamily') ?? 'Regular';
+  const vertical = { unitsPerEm: font.unitsPerEm, ascender, descender, xHeight, capHeight };
+  const broken = Object.entries(vertical).filter(([, value]) => typeof value !== 'number' || !Number.isFinite(value)).map(([key]) => key);
+  if (broken.length > 0) {
+    throw new InputError('font-unreadable', fileName, `${fileName}: the font is damaged: its ${broken.join(', ')} (tables 'head', 'hhea' and 'OS/2') are missing or not numbers. Export it again or try another copy.`);
+  }
+  const familyName = englishName(font, 'preferredFamily') ?? englishName(font, 'fontFamily') ?? basename(fileName).replace(/\.[^.]*$/, '');
+  const styleName = englishName(font, 'preferredSubfamily') ?? englishName(font, 'fontSubfamily') ?? 'Regular';
 
   return {
     fileName,

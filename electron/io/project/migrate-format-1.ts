@@ -9,6 +9,7 @@ import { invalidFieldError } from './project-error.ts';
 import { unicodeHexOf } from './project-unicodes.ts';
 import { embedScan } from './embedded-scan.ts';
 import { isBase64 } from './project-schema.ts';
+import { quotedJson, quotedText } from './schema-issue.ts';
 
 /** The format this migration reads. */
 export const FORMAT_1 = 1;
@@ -23,10 +24,10 @@ function migrateGlyph(glyph: unknown, index: number, file: string): unknown {
   const where = `glyphs.${index}`;
   if ('unicodes' in glyph) throw invalidFieldError(file, `${where}.unicodes`, 'a format 1 project has no "unicodes" (it came in with format 2); remove it, or set "formatVersion": 2 and remove "character"');
   const { character, ...rest } = glyph;
-  if (typeof character !== 'string') throw invalidFieldError(file, `${where}.character`, `it must be a string of one character, or "" for an unencoded glyph, not ${JSON.stringify(character) ?? 'missing'}`);
+  if (typeof character !== 'string') throw invalidFieldError(file, `${where}.character`, `it must be a string of one character, or "" for an unencoded glyph, not ${quotedJson(character)}`);
   const codePoints = [...character];
   if (codePoints.length > 1) {
-    throw invalidFieldError(file, `${where}.character`, `"${character}" is ${codePoints.length} characters and a glyph is for one; give the glyph one character, or "" and a name for a ligature`);
+    throw invalidFieldError(file, `${where}.character`, `"${quotedText(character)}" is ${codePoints.length} characters and a glyph is for one; give the glyph one character, or "" and a name for a ligature`);
   }
   return { unicodes: codePoints.map(unicodeHexOf), ...rest };
 }

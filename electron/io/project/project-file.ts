@@ -12,6 +12,7 @@ import { CURRENT_FORMAT_VERSION, PROJECT_FORMAT_NAME, projectSchema, type Projec
 import { invalidFieldError, ProjectError } from './project-error.ts';
 import { FORMAT_1, migrateFormat1 } from './migrate-format-1.ts';
 import { withEmbeddedScans } from './project-scans.ts';
+import { quotedJson, schemaProblem } from './schema-issue.ts';
 
 /**
  * Largest project file read: 512 MiB. Projects with embedded 600-dpi scans reach tens
@@ -32,7 +33,7 @@ export function parseProject(text: string, name: string): ProjectData {
   }
   const version = (raw as { formatVersion?: unknown }).formatVersion;
   if (typeof version !== 'number' || !Number.isInteger(version) || version < 1) {
-    throw new ProjectError('project-invalid', name, `${name}: "formatVersion" must be a whole number from 1; it is ${JSON.stringify(version)}.`);
+    throw new ProjectError('project-invalid', name, `${name}: "formatVersion" must be a whole number from 1; it is ${quotedJson(version)}.`);
   }
   if (version > CURRENT_FORMAT_VERSION) {
     throw new ProjectError('project-too-new', name, `${name} was saved by a newer ${APP_NAME} (project format ${version}); this version (${APP_VERSION}) reads up to format ${CURRENT_FORMAT_VERSION}. Update ${APP_NAME} to open it; the file has not been changed.`);
@@ -40,8 +41,8 @@ export function parseProject(text: string, name: string): ProjectData {
   const current = version === FORMAT_1 ? migrateFormat1(raw as Record<string, unknown>, name) : raw;
   const result = v.safeParse(projectSchema, current);
   if (!result.success) {
-    const issue = result.issues[0];
-    throw invalidFieldError(name, issue ? (v.getDotPath(issue) ?? 'the top level') : 'the top level', issue?.message ?? 'invalid value');
+    const { where, problem } = schemaProblem(result.issues);
+    throw invalidFieldError(name, where ?? 'the top level', problem);
   }
   return result.output;
 }
