@@ -13,6 +13,7 @@ import { HandlerError } from './handler-error.ts';
 import { MAX_FILE_NAME_LENGTH } from './places/workspace-files.ts';
 import { decodeScanBytes } from './io/decode-scan.ts';
 import { InputError } from './io/input-error.ts';
+import { schemaProblem } from './io/project/schema-issue.ts';
 
 /**
  * Largest scan file decoded for the page: 192 MiB, which holds an uncompressed 8-bit
@@ -49,10 +50,8 @@ const schema = v.strictObject({
 export function decodeScanArguments(raw: unknown): HostIntents['decodeScan']['args'] {
   const result = v.safeParse(schema, raw ?? {});
   if (!result.success) {
-    const issue = result.issues[0];
-    const where = issue ? (v.getDotPath(issue) ?? 'the arguments') : 'the arguments';
-    const problem = issue?.expected === 'never' ? 'this request does not take it' : (issue?.message ?? 'invalid value');
-    throw new HandlerError('bad-arguments', `The request "decodeScan" was refused: ${where} is wrong (${problem}). This is a bug in the app: please report it.`);
+    const { where, problem } = schemaProblem(result.issues, 'this request does not take it');
+    throw new HandlerError('bad-arguments', `The request "decodeScan" was refused: ${where ?? 'the arguments'} is wrong (${problem}). This is a bug in the app: please report it.`);
   }
   const { name, base64 } = result.output;
   if (base64.length > MAX_SCAN_BASE64_CHARACTERS) {
