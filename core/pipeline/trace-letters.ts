@@ -57,6 +57,13 @@ export interface TraceLettersOptions {
    * in the sheet's rows.)
    */
   readonly guides?: GuideHeights;
+  /**
+   * Fit only the letters with these indices (the others are left out of the result),
+   * so a caller can fit a sheet a few letters at a time and stop between them. The
+   * metrics and the scale still come from the whole sheet, so each letter fits exactly
+   * as it would with the rest. Default: every letter.
+   */
+  readonly letterIndices?: readonly number[];
   /** Progress over the whole pipeline (0–1) with the current step. */
   readonly onProgress?: (fraction: number, stage: TraceStage | 'fitting') => void;
 }
@@ -117,8 +124,10 @@ export function fitTracedSheet(scan: TraceScanResult, options: Omit<TraceLetters
   const scanBlurPx = options.fit?.scanBlurPx ?? scan.edgeBlurPx ?? undefined;
   const fitOptions: FitOptions = { ...options.fit, tolerance, pixelSize: scale, ...(scanBlurPx === undefined ? {} : { scanBlurPx }) };
   const notes = [...scan.notes, ...metrics.notes];
-  const letters = scan.sheet.letters.map((letter, i): TracedLetter => {
-    report?.(i / Math.max(1, scan.sheet.letters.length), 'fitting');
+  const only = options.letterIndices === undefined ? null : new Set(options.letterIndices);
+  const chosen = only === null ? scan.sheet.letters : scan.sheet.letters.filter((letter) => only.has(letter.index));
+  const letters = chosen.map((letter, i): TracedLetter => {
+    report?.(i / Math.max(1, chosen.length), 'fitting');
     const baselineY = scan.sheet.rows[letter.row]?.baseline ?? letter.box.y + letter.box.height;
     const frame: LetterFrame = { originX: letter.box.x, baselineY, unitsPerPixel: scale };
     const chains: GlyphChain[] = letter.contours.flatMap((index) => {
