@@ -39,7 +39,7 @@ export { boundingBox, boxContains, polygonContains, signedArea } from './polygon
 export { nestContours } from './nesting.ts';
 export { PIXEL_APERTURE_SIGMA_PX, estimateEdgeBlur } from './edge-blur.ts';
 export { segmentSheet, splitCharacters, type SegmentSheetOptions, type SheetLetter, type SheetRow, type SheetSegmentation } from './segment-sheet.ts';
-export { DEFAULT_SAUVOLA_WINDOW_MM, traceScan, type TraceScanOptions, type TraceScanResult, type TraceStage } from './trace-scan.ts';
+export { DEFAULT_SAUVOLA_WINDOW_MM, scanInk, traceScan, type ScanInk, type TraceScanOptions, type TraceScanResult, type TraceStage } from './trace-scan.ts';
 export { inReadingOrder } from './reading-order.ts';
 export { SheetEditError } from './sheet-edit-error.ts';
 export { mergeLetters, unionOfBoxes } from './merge-letters.ts';
