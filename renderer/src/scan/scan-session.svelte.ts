@@ -26,6 +26,14 @@ export const EDIT_NAMES: Record<SheetEdit['kind'], string> = {
 export interface SettingsStep {
   readonly from: { readonly settings: PipelineSettings; readonly edits: readonly SheetEdit[] };
   readonly to: { readonly settings: PipelineSettings; readonly edits: readonly SheetEdit[] };
+  /** The user's last corrections before the change, which the next scan settings are carried over from (see ScanSession.anchor). */
+  readonly anchor: Anchor;
+}
+
+/** Corrections the user made, with the scan settings of the sheet they were made on. */
+interface Anchor {
+  readonly settings: ScanSettings;
+  readonly edits: readonly SheetEdit[];
 }
 
 /** What an undo or redo changed: a correction, the scan settings (the letters were found again), or the fit settings (the letters need fitting again). */
@@ -87,6 +95,15 @@ export class ScanSession {
   private client: TraceClient | null = null;
   /** Set to stop the fit running after the letter it is on. */
   private cancelling = false;
+  /** Whether the last fit was stopped by the user (not failed). */
+  stopped = $state(false);
+  /**
+   * The corrections as the user last made them, and the scan settings of the sheet
+   * they made them on. Scan settings tried since are carried over from these, not
+   * from the last setting tried, so trying a level that loses letters and then
+   * another that finds them again gives every letter back its character.
+   */
+  private anchor: Anchor = { settings: DEFAULT_PIPELINE_SETTINGS.scan, edits: [] };
   /** The correction running or last run: the next one waits for it. */
   private turn: Promise<unknown> = Promise.resolve();
 
@@ -113,6 +130,7 @@ export class ScanSession {
       this.edits = [];
       this.undone = [];
       this.settings = settings;
+      this.anchor = { settings: settings.scan, edits: [] };
       this.settingsDone = [];
       this.settingsUndone = [];
       this.notice = null;
@@ -145,6 +163,7 @@ export class ScanSession {
       this.undone = [];
       this.settingsUndone = [];
       this.notice = null;
+      this.anchorHere();
       return true;
     });
   }
@@ -182,6 +201,7 @@ export class ScanSession {
       if (step) {
         const undone = await this.moveSettings(step.to, step.from);
         if (undone === null) return null;
+        this.anchor = step.anchor;
         this.settingsDone = this.settingsDone.slice(0, -1);
         this.settingsUndone = [...this.settingsUndone, step];
         return undone;
@@ -189,6 +209,7 @@ export class ScanSession {
       const last = this.edits[this.edits.length - 1];
       if (last === undefined || !(await this.show(this.edits.slice(0, -1)))) return null;
       this.undone = [...this.undone, last];
+      this.anchorHere();
       return 'correction';
     });
   }
@@ -200,12 +221,14 @@ export class ScanSession {
       if (next !== undefined) {
         if (!(await this.show([...this.edits, next]))) return null;
         this.undone = this.undone.slice(0, -1);
+        this.anchorHere();
         return 'correction';
       }
       const step = this.settingsToRedo;
       if (!step) return null;
       const redone = await this.moveSettings(step.from, step.to);
       if (redone === null) return null;
+      this.anchor = step.anchor;
       this.settingsUndone = this.settingsUndone.slice(0, -1);
       this.settingsDone = [...this.settingsDone, step];
       return redone;
@@ -219,7 +242,7 @@ export class ScanSession {
       this.settings = to.settings;
       return 'fit-settings';
     }
-    if (!(await this.retrace(to.settings, to.edits, false))) return null;
+    if (!(await this.retrace(to.settings, to.edits, null))) return null;
     return 'scan-settings';
   }
 
@@ -233,11 +256,12 @@ export class ScanSession {
     return this.inTurn(async () => {
       if (sameScanSettings(scan, this.settings.scan)) return true;
       const from = { settings: this.settings, edits: this.edits };
+      const anchor = this.anchor;
       const settings = { ...this.settings, scan };
-      const result = await this.retrace(settings, this.edits, true);
+      const result = await this.retrace(settings, this.edits, anchor);
       if (result === null) return false;
       this.notice = result.kept === 'all' ? null : carriedNotice(result.lostCharacters, result.droppedCorrections);
-      this.record({ from, to: { settings, edits: this.edits } });
+      this.record({ from, to: { settings, edits: this.edits }, anchor });
       return true;
     });
   }
@@ -248,9 +272,14 @@ export class ScanSession {
       if (sameFitSettings(fit, this.settings.fit)) return false;
       const from = { settings: this.settings, edits: this.edits };
       this.settings = { ...this.settings, fit };
-      this.record({ from, to: { settings: this.settings, edits: this.edits } });
+      this.record({ from, to: { settings: this.settings, edits: this.edits }, anchor: this.anchor });
       return true;
     });
+  }
+
+  /** The corrections as they are now become the ones later scan settings are carried over from. */
+  private anchorHere(): void {
+    this.anchor = { settings: this.settings.scan, edits: this.edits };
   }
 
   private record(step: SettingsStep): void {
@@ -260,14 +289,14 @@ export class ScanSession {
   }
 
   /** Traces again in the worker with progress; on success the sheet, edits and settings are the new ones. */
-  private async retrace(settings: PipelineSettings, edits: readonly SheetEdit[], rebase: boolean) {
+  private async retrace(settings: PipelineSettings, edits: readonly SheetEdit[], from: Anchor | null) {
     if (!this.client || !this.sheet || this.phase !== 'traced') return null;
     this.problem = null;
     this.phase = 'tracing';
     this.progress = 0;
     this.stageLabel = STAGE_LABELS.binarize ?? '';
     try {
-      const result = await this.client.retrace(settings.scan, edits, rebase, (fraction, stage) => {
+      const result = await this.client.retrace(settings.scan, edits, from, (fraction, stage) => {
         this.progress = fraction;
         this.stageLabel = STAGE_LABELS[stage] ?? stage;
       });
@@ -298,6 +327,7 @@ export class ScanSession {
       const lastAssign = [...edits].reverse().find((e) => e.kind === 'assign');
       if (lastAssign?.kind === 'assign') this.characters = lastAssign.characters;
       this.undone = [];
+      this.anchorHere();
       return true;
     });
   }
@@ -354,6 +384,7 @@ export class ScanSession {
     this.stageLabel = STAGE_LABELS.fitting ?? 'Fitting';
     this.progress = 0;
     this.cancelling = false;
+    this.stopped = false;
     try {
       if (assigned.length === 0) {
         this.fitted = await client.fit(settings);
@@ -363,6 +394,7 @@ export class ScanSession {
       for (let done = 0; done < assigned.length; done += LETTERS_PER_FIT_REQUEST) {
         if (this.cancelling) {
           this.problem = `Fitting stopped after ${done} of ${assigned.length} letters; the fitted letters are as they were.`;
+          this.stopped = true;
           return false;
         }
         const letters = assigned.slice(done, done + LETTERS_PER_FIT_REQUEST);

@@ -30,9 +30,9 @@ export class TraceClient {
     return this.send({ type: 'correct', id: this.nextId++, edits: [...edits] }, onProgress) as Promise<TracedSheet>;
   }
 
-  /** Traces the scan again with other settings, with `edits` carried over (`rebase`) or applied as they are. */
-  retrace(settings: ScanSettings, edits: readonly SheetEdit[], rebase: boolean, onProgress?: ProgressCallback): Promise<RetracedSheet> {
-    return this.send({ type: 'retrace', id: this.nextId++, settings, edits: [...edits], rebase }, onProgress) as Promise<RetracedSheet>;
+  /** Traces the scan again with other settings: the corrections of `from` carried over, or else `edits` applied as they are. */
+  retrace(settings: ScanSettings, edits: readonly SheetEdit[], from: { settings: ScanSettings; edits: readonly SheetEdit[] } | null, onProgress?: ProgressCallback): Promise<RetracedSheet> {
+    return this.send({ type: 'retrace', id: this.nextId++, settings, edits: [...edits], from: from && { settings: from.settings, edits: [...from.edits] } }, onProgress) as Promise<RetracedSheet>;
   }
 
   /** The ink `settings` give on the traced scan, as an image to lay over it. */

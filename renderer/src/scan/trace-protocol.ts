@@ -10,12 +10,14 @@ export type TraceRequest =
   /** Traces a decoded scan; the worker keeps its pixels, to trace it again with other settings. */
   | { type: 'trace'; id: number; raster: { width: number; height: number; data: Uint8Array; dpi?: number }; settings: ScanSettings }
   /**
-   * Traces the kept scan again with other settings and applies `edits`: carried over
-   * to the letters found now (core/raster rebase-sheet-edits.ts) when `rebase` is set,
-   * as they are otherwise (undo and redo of a settings change send the list they had).
-   * On failure the worker keeps the sheet it had.
+   * Traces the kept scan again with other settings. With `from`, the corrections
+   * `from.edits`, made on the scan traced with `from.settings` (the user's last
+   * corrections, whatever settings were tried since), are carried over to the letters
+   * found now (core/raster rebase-sheet-edits.ts); without it, `edits` are applied as
+   * they are (undo and redo of a settings change send the list they had). On failure
+   * the worker keeps the sheet it had.
    */
-  | { type: 'retrace'; id: number; settings: ScanSettings; edits: readonly SheetEdit[]; rebase: boolean }
+  | { type: 'retrace'; id: number; settings: ScanSettings; edits: readonly SheetEdit[]; from: { settings: ScanSettings; edits: readonly SheetEdit[] } | null }
   /** The cleaned ink mask the settings give on the kept scan, as an image to lay over it. */
   | { type: 'preview'; id: number; settings: ScanSettings }
   /**

@@ -21,7 +21,7 @@ import {
   type SheetEdit,
   type TraceScanResult,
 } from '../../../core/raster/index.ts';
-import { fitOptionsOf, fitTracedSheet, SettingsError, traceScanOptionsOf, validateFitSettings, validateScanSettings, type ScanSettings } from '../../../core/pipeline/index.ts';
+import { fitOptionsOf, fitTracedSheet, sameScanSettings, SettingsError, traceScanOptionsOf, validateFitSettings, validateScanSettings, type ScanSettings } from '../../../core/pipeline/index.ts';
 import { measureSheetMetrics, withGuideHeights } from '../../../core/metrics/index.ts';
 import type { FitSettings } from '../../../core/pipeline/index.ts';
 import { inkDigest } from './ink-digest.ts';
@@ -39,6 +39,8 @@ const OPAQUE = 255;
 
 let lastRaster: GreyRaster | null = null;
 let lastScan: TraceScanResult | null = null;
+/** The settings `lastScan` was traced with. */
+let lastSettings: ScanSettings | null = null;
 let frame: Pick<TracedSheet, 'width' | 'height' | 'dpi' | 'dpiAssumed' | 'level'> | null = null;
 /** The edits last applied, and the sheet before the first and after each of them (one longer than `edits`). */
 let applied: { edits: SheetEdit[]; states: CorrectedSheet[] } = { edits: [], states: [] };
@@ -137,25 +139,41 @@ function traceAndKeep(raster: GreyRaster, settings: ScanSettings, id: number): C
   });
   lastRaster = raster;
   lastScan = scan;
+  lastSettings = settings;
   frame = { width: raster.width, height: raster.height, dpi: scan.resolution.dpiX, dpiAssumed: scan.resolution.assumed, level: scan.level };
   applied = { edits: [], states: [uncorrectedSheet(scan.contours, scan.sheet)] };
   return current();
 }
 
-/** The kept scan traced with other settings and the corrections carried over; the previous sheet is kept when this fails. */
-function retrace(settings: ScanSettings, edits: readonly SheetEdit[], rebase: boolean, id: number): RetracedSheet {
+/**
+ * The sheet `from` describes: the kept scan traced with its settings (the sheet kept
+ * now when they are the ones it was traced with) and its corrections applied.
+ */
+function correctedFrom(from: { settings: ScanSettings; edits: readonly SheetEdit[] }): { traced: CorrectedSheet; corrected: CorrectedSheet } {
   if (!lastRaster || !lastScan) throw new Error('no sheet has been traced yet');
-  const previous = { raster: lastRaster, scan: lastScan, frame, applied };
-  const before = applied.states[0]!;
-  const unchanged = JSON.stringify(edits) === JSON.stringify(applied.edits);
-  const corrected = rebase ? (unchanged ? current() : applySheetEdits(before, edits, sourceOf(lastScan))) : null;
+  if (lastSettings !== null && sameScanSettings(from.settings, lastSettings)) {
+    const traced = applied.states[0]!;
+    const unchanged = JSON.stringify(from.edits) === JSON.stringify(applied.edits);
+    return { traced, corrected: unchanged ? current() : applySheetEdits(traced, from.edits, sourceOf(lastScan)) };
+  }
+  const scan = traceScan({ raster: lastRaster }, { smoothBilevel: true, ...traceScanOptionsOf(validateScanSettings(from.settings)) });
+  const traced = uncorrectedSheet(scan.contours, scan.sheet);
+  return { traced, corrected: applySheetEdits(traced, from.edits, sourceOf(scan)) };
+}
+
+/** The kept scan traced with other settings and the corrections carried over; the previous sheet is kept when this fails. */
+function retrace(settings: ScanSettings, edits: readonly SheetEdit[], from: { settings: ScanSettings; edits: readonly SheetEdit[] } | null, id: number): RetracedSheet {
+  if (!lastRaster || !lastScan) throw new Error('no sheet has been traced yet');
+  const previous = { raster: lastRaster, scan: lastScan, settings: lastSettings, frame, applied };
+  const base = from === null ? null : correctedFrom(from);
   try {
     const fresh = traceAndKeep(previous.raster, settings, id);
-    const carried = corrected ? rebaseSheetEdits(before.sheet, corrected, edits, fresh.sheet) : { edits: [...edits], kept: 'all' as const, lostCharacters: 0, droppedCorrections: 0 };
+    const carried = base && from ? rebaseSheetEdits(base.traced.sheet, base.corrected, from.edits, fresh.sheet) : { edits: [...edits], kept: 'all' as const, lostCharacters: 0, droppedCorrections: 0 };
     return { ...carried, sheet: result(correct(carried.edits, id)) };
   } catch (error) {
     lastRaster = previous.raster;
     lastScan = previous.scan;
+    lastSettings = previous.settings;
     frame = previous.frame;
     applied = previous.applied;
     throw error;
@@ -208,7 +226,7 @@ onmessage = async (event: MessageEvent<TraceRequest>) => {
     }
     if (!lastScan) throw new Error('no sheet has been traced yet');
     if (request.type === 'retrace') {
-      reply({ type: 'retraced', id: request.id, result: retrace(request.settings, request.edits, request.rebase, request.id) });
+      reply({ type: 'retraced', id: request.id, result: retrace(request.settings, request.edits, request.from, request.id) });
       return;
     }
     if (request.type === 'preview') {
