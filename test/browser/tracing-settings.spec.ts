@@ -7,13 +7,18 @@
 // letters it found at first, every box in its place and every character back. A
 // higher tolerance refits the letters with fewer on-curve points, and undo puts the
 // points back; a slow smooth-mode fit can be stopped, leaving the letters and the fit
-// settings as they were.
+// settings as they were. A letter the user edited keeps its outline through a new
+// tolerance, and the settings are saved in the project and come back when it opens.
 import { test, expect, type Page } from '@playwright/test';
 import { join } from 'node:path';
 import sharp from 'sharp';
 import { checkRequirement, CHROMIUM } from '../support/require-tool.ts';
+import { rmSync } from 'node:fs';
 import { DEMO_SHEETS_FOLDER, readDemoManifest } from '../../electron/demo/demo-files.ts';
 import { splitCharacters } from '../../core/raster/index.ts';
+import { openFittedDemoSheet } from '../support/demo-sheet.ts';
+import { BROWSER_WORKSPACE } from '../support/browser-host-folders.ts';
+import { loadProject } from '../../electron/io/project/project-file.ts';
 
 const chromium = checkRequirement(CHROMIUM);
 
@@ -174,5 +179,49 @@ test.describe('tracing settings on the sheet', () => {
       expect(await points()).toBe(atDefault);
     });
     expect(problems).toEqual([]);
+  });
+
+  test('a letter the user edited keeps its outline through a new tolerance, and the settings come back with the project', async ({ page }) => {
+    const name = 'tracing-settings';
+    const file = join(BROWSER_WORKSPACE, `${name}.stemline`);
+    for (const f of [file, join(BROWSER_WORKSPACE, `.${name}.stemline.recovery`)]) rmSync(f, { force: true });
+    await openFittedDemoSheet(page);
+    const firstPoint = page.getByTestId('on-curve-point').first();
+    await page.getByTestId('letter-thumbnail').filter({ hasText: 'o' }).first().click();
+    const box = (await firstPoint.boundingBox())!;
+    await page.mouse.click(box.x + box.width / 2, box.y + box.height / 2);
+    const before = Number(await firstPoint.getAttribute('data-x'));
+    for (let i = 0; i < 5; i++) await page.keyboard.press('ArrowRight');
+    await expect(firstPoint).toHaveAttribute('data-x', String(before + 5));
+    await page.getByRole('button', { name: /^←/ }).first().click();
+    await page.getByRole('button', { name: '← Sheet' }).click();
+
+    await commit(page, 'fit-tolerance', 4);
+    await expect(page.getByTestId('fit-summary')).toContainText('1 letter you edited kept its outline');
+    await commit(page, 'threshold-level-value', 100);
+    await expect(page.getByTestId('threshold-level')).toBeChecked();
+    await expect(page.getByTestId('letter-count')).toHaveText('3 letters in 1 row');
+    await expect(page.getByTestId('assigned-count')).toHaveText('3 of 3 letters assigned');
+
+    await page.getByRole('button', { name: 'Save', exact: true }).click();
+    await page.getByTestId('project-chooser').getByLabel('File name').fill(name);
+    await page.getByTestId('project-chooser').getByRole('button', { name: 'Save', exact: true }).click();
+    await expect(page.getByTestId('project-status')).toHaveText(`Saved ${name}.stemline`);
+    const saved = await loadProject(file);
+    expect(saved.scans[0]?.threshold).toBe(100);
+    expect(saved.fit.tolerance).toBe(4);
+
+    await page.reload();
+    await page.getByRole('button', { name: 'Open…' }).click();
+    await page.getByTestId('project-chooser').getByTestId('project-choice').filter({ hasText: `${name}.stemline` }).click();
+    await expect(page.getByRole('heading', { name: 'Letters at a glance' })).toBeVisible();
+    await page.getByTestId('letter-thumbnail').filter({ hasText: 'o' }).first().click();
+    await expect(firstPoint).toHaveAttribute('data-x', String(before + 5));
+    await page.getByRole('button', { name: /^←/ }).first().click();
+    await page.getByRole('button', { name: '← Sheet' }).click();
+    await expect(page.getByTestId('threshold-level')).toBeChecked();
+    await expect(page.getByTestId('threshold-level-value')).toHaveValue('100');
+    await expect(page.getByTestId('fit-tolerance')).toHaveValue('4');
+    for (const f of [file, join(BROWSER_WORKSPACE, `.${name}.stemline.recovery`)]) rmSync(f, { force: true });
   });
 });
