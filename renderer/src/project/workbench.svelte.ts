@@ -129,10 +129,16 @@ export class Workbench {
     let file: File | null = null;
     this.restoring = next;
     try {
+      // The project's settings, also when it has no scan (one made from a font), so a save keeps them.
+      try {
+        next.settings = projectSettings(project, scan);
+      } catch (error) {
+        throw new Error(`${projectName}: ${error instanceof Error ? error.message : String(error)} Fix the setting in the file by hand; the file has not been changed.`);
+      }
       if (scan) {
         if (!scan.embedded) throw new Error(`${projectName}: the host sent the project without its scan. Please report this.`);
         file = fileFromCopy(scan.embedded, baseName(scan.path));
-        if (!(await next.open(file, projectSettings(project, scan)))) throw new Error(`${projectName}: its scan could not be opened: ${next.problem ?? 'unknown problem'}`);
+        if (!(await next.open(file, next.settings))) throw new Error(`${projectName}: its scan could not be opened: ${next.problem ?? 'unknown problem'}`);
         if (scan.sheetEdits !== undefined) {
           if (!(await next.restoreEdits(scan.sheetEdits))) throw new Error(`${projectName}: the corrections of its scan's letters could not be made again: ${next.problem ?? 'unknown problem'} The file has not been changed.`);
           if (scan.characters !== undefined) next.characters = scan.characters;
