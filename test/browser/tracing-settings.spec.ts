@@ -4,7 +4,8 @@
 // faint marks vanish (fewer letters, each inside a letter found automatically); near
 // the paper's grey all of the page is ink (one letter). The ink a level gives is laid
 // over the scan while it is chosen. Going back to the automatic level finds the
-// letters it found at first, every box in its place and every character back. A
+// letters it found at first, every box in its place and every character back, and
+// undo and redo step between the two settings. A
 // higher tolerance refits the letters with fewer on-curve points, and undo puts the
 // points back; a slow smooth-mode fit can be stopped, leaving the letters and the fit
 // settings as they were. A letter the user edited keeps its outline through a new
@@ -147,6 +148,18 @@ test.describe('tracing settings on the sheet', () => {
       await expect(page.getByTestId('letter-count')).toHaveText(`${characters.length} letters in 5 rows`);
       expect(await letterBoxes(page)).toEqual(automatic);
       await expect(page.getByTestId('assigned-count')).toHaveText(`${characters.length} of ${characters.length} letters assigned`);
+    });
+
+    await test.step('undo takes the scan setting back to the level last set, and redo returns to the automatic level', async () => {
+      await page.getByRole('button', { name: 'Undo settings' }).click();
+      await settled(page);
+      await expect(page.getByTestId('threshold-level')).toBeChecked();
+      await expect(page.getByTestId('threshold-level-value')).toHaveValue('200');
+      await expect(page.getByTestId('assigned-count')).toHaveText(`${characters.length} of ${characters.length} letters assigned`);
+      await page.getByRole('button', { name: 'Redo settings' }).click();
+      await settled(page);
+      await expect(page.getByTestId('threshold-otsu')).toBeChecked();
+      expect(await letterBoxes(page)).toEqual(automatic);
     });
 
     await page.getByTestId('show-ink').uncheck();
