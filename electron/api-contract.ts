@@ -122,6 +122,25 @@ export interface ImportedScan {
   bytes: Uint8Array;
 }
 
+/**
+ * A scan the host decoded for the page (decodeScan): its 8-bit greys as a lossless
+ * greyscale PNG, which the page decodes to exactly these values and shows as the sheet.
+ */
+export interface DecodedScanImage {
+  width: number;
+  height: number;
+  /** The resolution the file records, in dots per inch; absent when it records none. */
+  dpi?: number;
+  /** The file's format as the decoder names it, e.g. 'tiff'. */
+  format: string;
+  /** Whether the file stores one bit per pixel. */
+  bilevel: boolean;
+  /** Things the user should know about how the file was read (e.g. only the first of several pages). */
+  notes: string[];
+  /** The greys as a PNG file, in standard base64. */
+  pngBase64: string;
+}
+
 /** Where an exported font was written. */
 export interface ExportedFont {
   /** The font file's name, e.g. "Harbour Signs.otf". */
@@ -194,6 +213,11 @@ export interface HostIntents {
   openRecentProject: { args: { handle: ProjectHandle }; result: OpenedProject };
   /** Desktop app: asks for a scan in the open dialog and returns its bytes. Null: the user cancelled. Browser mode refuses (the page takes scans itself). */
   importScan: { args: Record<string, never>; result: ImportedScan | null };
+  /**
+   * Decodes a scan file the page cannot decode itself (TIFF, including 1-bit Group 4),
+   * with the command line's decoder and limits: `name` for messages, the file's bytes in base64.
+   */
+  decodeScan: { args: { name: string; base64: string }; result: DecodedScanImage };
   /** The window's project state changed (title, unsaved changes, undo and redo). */
   reportProjectState: { args: ProjectState; result: Record<string, never> };
   /** Closes the window now, once its work is saved (after the close prompt's Save). False where the host has no window to close (browser mode). */
@@ -262,6 +286,7 @@ export const INTENT_NAMES = [
   'listRecentProjects',
   'openRecentProject',
   'importScan',
+  'decodeScan',
   'reportProjectState',
   'closeWindow',
 ] as const satisfies readonly IntentName[];

@@ -21,6 +21,7 @@ import { contentTypeOf, rendererFileFor } from './renderer-files.ts';
 import { pageSecurityHeaders } from './shell/content-security-policy.ts';
 import type { IntentName } from './api-contract.ts';
 import { MAX_FONT_ARGUMENT_CHARACTERS } from './font-arguments.ts';
+import { MAX_DECODE_SCAN_REQUEST_CHARACTERS } from './scan-decode-handler.ts';
 
 /** Only the loopback interface: the host must never be reachable from another machine. */
 export const LOOPBACK_ADDRESS = '127.0.0.1';
@@ -46,6 +47,8 @@ const FONT_CARRYING: ReadonlySet<string> = new Set<IntentName>(['buildProofFont'
 function bodyLimitFor(intent: string): number {
   if (PROJECT_CARRYING.has(intent)) return MAX_PROJECT_REQUEST_BYTES;
   if (FONT_CARRYING.has(intent)) return MAX_FONT_ARGUMENT_CHARACTERS;
+  // A scan file the page cannot decode, in base64 (scan-decode-handler.ts).
+  if (intent === 'decodeScan') return MAX_DECODE_SCAN_REQUEST_CHARACTERS;
   return MAX_REQUEST_BYTES;
 }
 
@@ -171,7 +174,7 @@ async function answerIntent(intent: string, context: HostContext, request: Incom
     args = JSON.parse((await readBody(request, bodyLimitFor(intent))) || 'null');
   } catch (error) {
     if (error instanceof BodyTooLarge) {
-      sendJson(response, 413, { error: { kind: 'bad-arguments', message: `The request is larger than the ${error.limit / 2 ** 20} MiB the browser host takes, so it was refused. ${FONT_CARRYING.has(intent) ? 'A font this large needs fewer points: refit its most detailed glyphs with a larger tolerance.' : 'A project this large needs smaller scans (a lower resolution or a cropped sheet).'}` } });
+      sendJson(response, 413, { error: { kind: 'bad-arguments', message: `The request is larger than the ${error.limit / 2 ** 20} MiB the browser host takes, so it was refused. ${FONT_CARRYING.has(intent) ? 'A font this large needs fewer points: refit its most detailed glyphs with a larger tolerance.' : intent === 'decodeScan' ? 'Save the scan compressed (Group 4 for a 1-bit scan, LZW or Deflate for grey), at a lower resolution, or cropped.' : 'A project this large needs smaller scans (a lower resolution or a cropped sheet).'}` } });
       return;
     }
     sendJson(response, 400, { error: { kind: 'bad-arguments', message: 'The request body was not valid JSON.' } });

@@ -16,6 +16,7 @@ import { writeOtf } from './io/font/write-font.ts';
 import { FONT_FILE_EXTENSION } from './io/font/write-font-file.ts';
 import { writeFileAtomic } from './io/atomic-write.ts';
 import { fontSourceFromProject } from './io/project/font-from-project.ts';
+import { repeatedCharacterProblem } from './repeated-glyph-characters.ts';
 
 type Args<K extends keyof HostIntents> = HostIntents[K]['args'];
 
@@ -24,6 +25,9 @@ const SPACE = ' ';
 
 /** The font source for `content`, or a HandlerError 'font-build' saying what to change. */
 function sourceOf(content: FontContent): FontSource {
+  // Two letters with one character: said by the letters' numbers on the sheet, not by glyph numbers (repeated-glyph-characters.ts).
+  const repeated = repeatedCharacterProblem(content.glyphs);
+  if (repeated !== null) throw new HandlerError('font-build', `The font could not be built: ${repeated}`);
   try {
     return fontSourceFromProject(content);
   } catch (error) {

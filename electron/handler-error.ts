@@ -16,6 +16,8 @@ export type HandlerErrorKind =
   | 'project-file'
   /** The project's glyphs cannot make a valid font; the message names the glyph or value to change. */
   | 'font-build'
+  /** A scan the page sent to be decoded is not an image Stemline reads, is damaged, or is too large; the message says what to do. */
+  | 'scan-unreadable'
   /** The demo project's sheets are missing or damaged; the message says how to draw them again. */
   | 'demo-missing';
 

@@ -13,6 +13,7 @@ import { openDemo } from './demo-handlers.ts';
 import { autosaveProject, discardRecoveredWork, findRecoveredWork, listProjects, listRecentProjects, openProject, openRecentProject, saveProject, saveProjectAs } from './project-handlers.ts';
 import { closeWindow, projectStateArguments, reportProjectState } from './window-handlers.ts';
 import { importScan } from './scan-import-handler.ts';
+import { decodeScan, decodeScanArguments } from './scan-decode-handler.ts';
 
 export type { HostContext } from './host-context.ts';
 
@@ -42,6 +43,7 @@ const HANDLERS: HandlerTable = {
   listRecentProjects,
   openRecentProject,
   importScan,
+  decodeScan,
   reportProjectState,
   closeWindow,
 };
@@ -62,6 +64,7 @@ const VALIDATORS: { [K in IntentName]: (raw: unknown) => HostIntents[K]['args'] 
   listRecentProjects: (raw) => expectEmptyObject('listRecentProjects', raw),
   openRecentProject: (raw) => projectArguments('openRecentProject', raw),
   importScan: (raw) => expectEmptyObject('importScan', raw),
+  decodeScan: (raw) => decodeScanArguments(raw),
   reportProjectState: (raw) => projectStateArguments(raw),
   closeWindow: (raw) => expectEmptyObject('closeWindow', raw),
 };

@@ -47,6 +47,7 @@ const stemlineHostApi = {
   listRecentProjects: (args) => callHost('listRecentProjects', args),
   openRecentProject: (args) => callHost('openRecentProject', args),
   importScan: (args) => callHost('importScan', args),
+  decodeScan: (args) => callHost('decodeScan', args),
   reportProjectState: (args) => callHost('reportProjectState', args),
   closeWindow: (args) => callHost('closeWindow', args),
   onMenuCommand,

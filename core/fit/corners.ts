@@ -88,24 +88,16 @@ const MAX_ROUNDING_ZONE_PX = 8;
 /**
  * How far the sharp corner may lie from the traced tip. A tip rounded with radius r
  * lies r·(1/sin(opening/2) − 1) inside the sharp corner; anti-aliasing and moderate
- * blur round by up to about 1.5 px. A drawn corner rounded more than that is the
- * designer's rounding and is kept (measured: with a reach of 2.5 px/sin(opening/2),
- * the rounded crotch of Linux Libertine's n was cut 6 units too deep at 0.5 px per
- * unit).
+ * blur round by up to about 1.5 px, and 1 px more covers noise in the apex. A drawn
+ * corner rounded more than that is the designer's rounding and is kept (measured: with
+ * a reach of 2.5 px/sin(opening/2), the rounded crotch of Linux Libertine's n was cut
+ * 6 units too deep at 0.5 px per unit). The margin stays in pixels: capped at 1.5 font
+ * units it kept the 5-unit bowl brackets of Linux Libertine round at 0.5 px per unit
+ * (Hausdorff p95 3.77 → 2.80), but on the demo sheet, where a pixel is more than 1.5
+ * units, it took true pen corners for roundings (warnings 3 → 8).
  */
 export const CORNER_ROUNDING_RADIUS_PX = 1.5;
-/**
- * Margin on the reach for noise in the apex and in the sides' tangents: 1 px, but at
- * most 1.5 font units. Measured on the round trip of Linux Libertine (A–Z a–z 0–9):
- * at 0.5 px per unit a margin of 1 px (2 units) let the meet of a stem and a bowl's
- * bracket 5 units round pass for a corner (b, n, p: Hausdorff p95 3.77 units, corner
- * precision 0.886); 1.5 units gives 2.8 and 0.91, with recall 0.949 → 0.954. At 1 px
- * per unit a smaller margin lost true corners whose sides curve into them (0.75 px:
- * recall 0.956 → 0.949 clean, 0.958 → 0.941 rough, 0.86 → 0.72 on the 1-bit copy).
- * Our own choice.
- */
 const CORNER_REACH_MARGIN_PX = 1;
-const CORNER_REACH_MARGIN_MAX_UNITS = 1.5;
 const MAX_CORNER_REACH_PX = 8;
 /** Sides shorter than this many points are fitted with a line rather than a parabola. */
 const MIN_POINTS_FOR_PARABOLA = 6;
@@ -159,7 +151,7 @@ export function roundingZoneFor(turn: number, pixel: number, blurPx?: number): n
  * corner the traced tip may lie. With the scan's blur σ known, the tip of a corner
  * blurred by a Gaussian of σ lies σ·g(opening) inside it (blurredWedgeInset); without
  * it, a tip rounded with radius {@link CORNER_ROUNDING_RADIUS_PX} is assumed. Both
- * get the margin of {@link CORNER_REACH_MARGIN_PX} (at most {@link CORNER_REACH_MARGIN_MAX_UNITS}) for noise.
+ * get {@link CORNER_REACH_MARGIN_PX} for noise.
  */
 export function cornerReachFor(turn: number, pixel: number, blurPx?: number): number {
   const opening = Math.PI - Math.abs(turn);
@@ -167,8 +159,7 @@ export function cornerReachFor(turn: number, pixel: number, blurPx?: number): nu
     blurPx === undefined
       ? CORNER_ROUNDING_RADIUS_PX * (1 / Math.max(Math.sin(opening / 2), 1e-3) - 1)
       : Math.max(blurPx * blurredWedgeInset(opening), UNRESOLVED_WEDGE_HALF_WIDTH_PX / Math.tan(Math.max(opening, 1e-3) / 2));
-  const margin = Math.min(CORNER_REACH_MARGIN_PX * pixel, CORNER_REACH_MARGIN_MAX_UNITS);
-  return Math.min(MAX_CORNER_REACH_PX * pixel, inset * pixel + margin);
+  return Math.min(MAX_CORNER_REACH_PX, inset + CORNER_REACH_MARGIN_PX) * pixel;
 }
 
 /**

@@ -580,7 +580,11 @@ function solve(chain: BoundaryChain, unknowns: readonly (CubicUnknowns | undefin
       }
       return sum;
     };
-    const violation = (lengths: Float64Array): number => terms.reduce((sum, t) => sum + Math.abs(stepResidual(unknowns, t, lengths)), 0);
+    const violation = (lengths: Float64Array): number => {
+      let sum = 0;
+      for (const t of terms) sum += Math.abs(stepResidual(unknowns, t, lengths));
+      return sum;
+    };
     for (let step = 0; step < MAX_SOLVER_STEPS; step++) {
       // KKT system [H Jᵀ; J −εI][δ; λ] = [−g; −r], row-major.
       const kkt = new Float64Array(total * total);
@@ -610,7 +614,8 @@ function solve(chain: BoundaryChain, unknowns: readonly (CubicUnknowns | undefin
         kkt[p * total + p]! += (2 * ORIGINAL_LENGTH_WEIGHT) / chord2;
       }
       let largestResidual = 0;
-      terms.forEach((t, c) => {
+      for (let c = 0; c < constraints; c++) {
+        const t = terms[c]!;
         const row = size + c;
         const { residual, partials } = stepResidualWithPartials(unknowns, t, x);
         largestResidual = Math.max(largestResidual, Math.abs(residual));
@@ -622,7 +627,7 @@ function solve(chain: BoundaryChain, unknowns: readonly (CubicUnknowns | undefin
           kkt[p * total + row] = dk;
         }
         kkt[row * total + row] = -CONSTRAINT_SOFTENING;
-      });
+      }
       const solution = solveDense(kkt, rhs, total);
       if (!solution) break;
       let largestMultiplier = 0;
@@ -636,11 +641,12 @@ function solve(chain: BoundaryChain, unknowns: readonly (CubicUnknowns | undefin
       for (let halving = 0; halving < MAX_STEP_HALVINGS; halving++, fraction /= 2) {
         const trial = x.slice();
         moved = 0;
-        index.forEach((k, p) => {
+        for (let p = 0; p < size; p++) {
+          const k = index[p]!;
           const u = unknowns[k >> 1]!;
           trial[k] = Math.max(u.minLength, x[k]! + fraction * solution[p]!);
           moved = Math.max(moved, Math.abs(trial[k]! - x[k]!) / u.chord);
-        });
+        }
         if (merit(trial) <= current) {
           x.set(trial);
           accepted = true;
@@ -660,26 +666,27 @@ function stepResidual(unknowns: readonly (CubicUnknowns | undefined)[], t: JoinT
 
 function stepResidualWithPartials(unknowns: readonly (CubicUnknowns | undefined)[], t: JoinTerm, lengths: Float64Array): { residual: number; partials: Map<number, number> } {
   const partials = new Map<number, number>();
-  const add = (k: number, value: number): void => {
-    partials.set(k, (partials.get(k) ?? 0) + value / t.scale);
-  };
   let kappaIn = 0;
   let kappaOut = 0;
   if (t.arriving >= 0) {
     const i = t.arriving;
     const c = endCurvatures(unknowns[i]!, lengths[2 * i]!, lengths[2 * i + 1]!);
     kappaIn = c[3];
-    add(2 * i, c[4]);
-    add(2 * i + 1, c[5]);
+    addPartial(partials, 2 * i, c[4] / t.scale);
+    addPartial(partials, 2 * i + 1, c[5] / t.scale);
   }
   if (t.leaving >= 0) {
     const i = t.leaving;
     const c = endCurvatures(unknowns[i]!, lengths[2 * i]!, lengths[2 * i + 1]!);
     kappaOut = c[0];
-    add(2 * i, -c[1]);
-    add(2 * i + 1, -c[2]);
+    addPartial(partials, 2 * i, -c[1] / t.scale);
+    addPartial(partials, 2 * i + 1, -c[2] / t.scale);
   }
   return { residual: (kappaIn - kappaOut) / t.scale, partials };
+}
+
+function addPartial(partials: Map<number, number>, k: number, value: number): void {
+  partials.set(k, (partials.get(k) ?? 0) + value);
 }
 
 /** Gaussian elimination with partial pivoting on a dense row-major n × n system; undefined when singular. */

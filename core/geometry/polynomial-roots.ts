@@ -130,38 +130,50 @@ export function realRoots(p: Polynomial): number[] {
  * itself or, for degree ≤ 2, just outside the interval and hence dropped.
  */
 export function realRootsInInterval(p: Polynomial, lo: number, hi: number): number[] {
+  // Written with loops and module-level helpers rather than closures: this runs in the
+  // fitter's innermost loops (nearest points, extrema), where a closure per call costs
+  // more than the arithmetic.
   if (!(lo <= hi)) return [];
   const q = trimPolynomial(p);
   const degree = q.length - 1;
-  const inside = (x: number): boolean => x >= lo && x <= hi;
   if (degree <= 0) return [];
-  if (degree === 1) return solveLinear(q[1] ?? 0, q[0] ?? 0).filter(inside);
-  if (degree === 2) return solveQuadratic(q[2] ?? 0, q[1] ?? 0, q[0] ?? 0).filter(inside);
+  if (degree === 1) return within(solveLinear(q[1] ?? 0, q[0] ?? 0), lo, hi);
+  if (degree === 2) return within(solveQuadratic(q[2] ?? 0, q[1] ?? 0, q[0] ?? 0), lo, hi);
 
   const dq = derivativeOfPolynomial(q);
-  const critical = realRootsInInterval(dq, lo, hi).filter((x) => x > lo && x < hi);
-  const breakpoints = [lo, ...critical, hi];
-  const values = breakpoints.map((x) => evaluatePolynomial(q, x));
-  const isZero = breakpoints.map(
-    (x, i) => Math.abs(values[i] ?? 0) <= polynomialEvaluationErrorBound(q, x),
-  );
-
+  const critical = realRootsInInterval(dq, lo, hi);
+  const breakpoints = [lo];
+  for (const x of critical) if (x > lo && x < hi) breakpoints.push(x);
+  breakpoints.push(hi);
+  const count = breakpoints.length;
+  const values = new Array<number>(count);
+  const isZero = new Array<boolean>(count);
   const roots: number[] = [];
-  for (let i = 0; i < breakpoints.length; i++) {
-    if (isZero[i]) roots.push(breakpoints[i] ?? 0);
+  for (let i = 0; i < count; i++) {
+    const x = breakpoints[i]!;
+    values[i] = evaluatePolynomial(q, x);
+    isZero[i] = Math.abs(values[i]!) <= polynomialEvaluationErrorBound(q, x);
+    if (isZero[i]) roots.push(x);
   }
-  const f = (x: number): number => evaluatePolynomial(q, x);
-  const fPrime = (x: number): number => evaluatePolynomial(dq, x);
-  for (let i = 0; i + 1 < breakpoints.length; i++) {
-    const a = breakpoints[i] ?? 0;
-    const b = breakpoints[i + 1] ?? 0;
-    const fa = values[i] ?? 0;
-    const fb = values[i + 1] ?? 0;
-    if (isZero[i] || isZero[i + 1] || Math.sign(fa) === Math.sign(fb)) continue;
-    roots.push(refineBracketedRoot(f, fPrime, a, b));
+  for (let i = 0; i + 1 < count; i++) {
+    if (isZero[i] || isZero[i + 1] || Math.sign(values[i]!) === Math.sign(values[i + 1]!)) continue;
+    roots.push(refineRoot(evaluatePolynomial, q, dq, breakpoints[i]!, breakpoints[i + 1]!));
   }
-  roots.sort((x, y) => x - y);
-  return roots.filter((x, i) => i === 0 || x !== roots[i - 1]);
+  roots.sort(ascending);
+  const distinct: number[] = [];
+  for (let i = 0; i < roots.length; i++) if (i === 0 || roots[i] !== roots[i - 1]) distinct.push(roots[i]!);
+  return distinct;
+}
+
+function ascending(x: number, y: number): number {
+  return x - y;
+}
+
+/** The values of xs inside [lo, hi], in order. */
+function within(xs: readonly number[], lo: number, hi: number): number[] {
+  const kept: number[] = [];
+  for (const x of xs) if (x >= lo && x <= hi) kept.push(x);
+  return kept;
 }
 
 /**
@@ -189,10 +201,22 @@ export function refineBracketedRoot(
   lo: number,
   hi: number,
 ): number {
+  return refineRoot(callAt, f, fPrime, lo, hi);
+}
+
+function callAt(fn: (x: number) => number, x: number): number {
+  return fn(x);
+}
+
+/**
+ * refineBracketedRoot for a function given as data (`fn`, `dfn`) and an evaluator, so
+ * that polynomials are refined without a closure per call.
+ */
+function refineRoot<F>(evaluate: (fn: F, x: number) => number, fn: F, dfn: F, lo: number, hi: number): number {
   let a = Math.min(lo, hi);
   let b = Math.max(lo, hi);
-  let fa = f(a);
-  let fb = f(b);
+  let fa = evaluate(fn, a);
+  let fb = evaluate(fn, b);
   if (fa === 0) return a;
   if (fb === 0) return b;
   if (Math.sign(fa) === Math.sign(fb)) {
@@ -201,7 +225,7 @@ export function refineBracketedRoot(
   let x = a + (b - a) / 2;
   let previousStep = b - a;
   for (let iteration = 0; iteration < MAX_REFINEMENT_ITERATIONS; iteration++) {
-    const fx = f(x);
+    const fx = evaluate(fn, x);
     if (fx === 0) return x;
     if (Math.sign(fx) === Math.sign(fa)) {
       a = x;
@@ -212,7 +236,7 @@ export function refineBracketedRoot(
     }
     const mid = a + (b - a) / 2;
     if (mid <= a || mid >= b) break; // a and b are adjacent doubles
-    const newton = x - fx / fPrime(x);
+    const newton = x - fx / evaluate(dfn, x);
     const newtonIsUseful =
       Number.isFinite(newton) && newton > a && newton < b && Math.abs(newton - x) <= previousStep / 2;
     const next = newtonIsUseful ? newton : mid;
@@ -221,7 +245,7 @@ export function refineBracketedRoot(
     x = next;
   }
   // Return whichever of the last iterate and the bracket ends has the smallest residual.
-  const fx = f(x);
+  const fx = evaluate(fn, x);
   let best = x;
   let bestResidual = Math.abs(fx);
   if (Math.abs(fa) < bestResidual) {

@@ -25,28 +25,40 @@ export interface PowerBasisCurve {
  * with possibly zero leading coefficients.
  */
 export function powerBasisOf(segment: Segment, origin: Point = { x: 0, y: 0 }): PowerBasisCurve {
-  const coordinate = (pick: (p: Point) => number): Polynomial => {
-    const o = pick(origin);
-    switch (segment.kind) {
-      case 'line': {
-        const a = pick(segment.p0) - o;
-        const b = pick(segment.p1) - o;
-        return [a, b - a];
-      }
-      case 'quad': {
-        const a = pick(segment.p0) - o;
-        const b = pick(segment.p1) - o;
-        const c = pick(segment.p2) - o;
-        return [a, 2 * (b - a), a - 2 * b + c];
-      }
-      case 'cubic': {
-        const a = pick(segment.p0) - o;
-        const b = pick(segment.p1) - o;
-        const c = pick(segment.p2) - o;
-        const d = pick(segment.p3) - o;
-        return [a, 3 * (b - a), 3 * (a - 2 * b + c), d - a + 3 * (b - c)];
-      }
+  // Module-level pickers rather than closures: nearest-point queries call this in the
+  // fitter's innermost loops.
+  return { x: coordinatePolynomial(segment, origin, pickX), y: coordinatePolynomial(segment, origin, pickY) };
+}
+
+function pickX(p: Point): number {
+  return p.x;
+}
+
+function pickY(p: Point): number {
+  return p.y;
+}
+
+/** One coordinate of the segment, measured from the origin's, as a power-basis polynomial. */
+function coordinatePolynomial(segment: Segment, origin: Point, pick: (p: Point) => number): Polynomial {
+  const o = pick(origin);
+  switch (segment.kind) {
+    case 'line': {
+      const a = pick(segment.p0) - o;
+      const b = pick(segment.p1) - o;
+      return [a, b - a];
     }
-  };
-  return { x: coordinate((p) => p.x), y: coordinate((p) => p.y) };
+    case 'quad': {
+      const a = pick(segment.p0) - o;
+      const b = pick(segment.p1) - o;
+      const c = pick(segment.p2) - o;
+      return [a, 2 * (b - a), a - 2 * b + c];
+    }
+    case 'cubic': {
+      const a = pick(segment.p0) - o;
+      const b = pick(segment.p1) - o;
+      const c = pick(segment.p2) - o;
+      const d = pick(segment.p3) - o;
+      return [a, 3 * (b - a), 3 * (a - 2 * b + c), d - a + 3 * (b - c)];
+    }
+  }
 }

@@ -5,3 +5,4 @@ export { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, inkExtent, spaceGlyph, type SpacedG
 export { DEFAULT_UNITS_PER_EM } from './units-per-em.ts';
 export { DEFAULT_LINE_SPACING_EM, defaultLineGap } from './line-gap.ts';
 export { SET_BY_HAND, withGuideHeights, type GuideHeights } from './guide-heights.ts';
+export { FALLBACK_ASCENDER_PER_CAP, FALLBACK_DESCENDER_PER_CAP, FALLBACK_X_HEIGHT_PER_CAP, fontHeights, type DrawnHeights, type FontHeights, type PlaceholderHeight } from './font-heights.ts';

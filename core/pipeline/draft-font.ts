@@ -6,16 +6,8 @@
 import type { GlyphOutline } from '../outline/index.ts';
 import { contourSegments } from '../outline/index.ts';
 import { boundsOfSegments } from '../geometry/bounds.ts';
-import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, defaultLineGap, spaceGlyph } from '../metrics/index.ts';
-import type { TracedLetter, TracedLetters } from './trace-letters.ts';
-
-/**
- * Fallbacks relative to the cap height when the sheets do not show a metric (common
- * practice for Latin text faces, from memory): x-height ≈ 0.7 of the cap height,
- * ascender ≈ 1.07 of it.
- */
-const FALLBACK_X_HEIGHT_PER_CAP = 0.7;
-const FALLBACK_ASCENDER_PER_CAP = 750 / 700;
+import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, fontHeights, spaceGlyph } from '../metrics/index.ts';
+import type { FittedSheet, TracedLetter } from './trace-letters.ts';
 
 export interface DraftFontSettings {
   readonly familyName: string;
@@ -64,7 +56,7 @@ function median(values: readonly number[]): number | null {
 }
 
 /** Median over sheets of a measured height, in font units. */
-function measuredUnits(sheets: readonly TracedLetters[], pick: (s: TracedLetters) => number | undefined): number | null {
+function measuredUnits(sheets: readonly FittedSheet[], pick: (s: FittedSheet) => number | undefined): number | null {
   const values = sheets.flatMap((s) => {
     const pixels = pick(s);
     return pixels === undefined ? [] : [pixels * s.unitsPerPixel];
@@ -77,7 +69,7 @@ function measuredUnits(sheets: readonly TracedLetters[], pick: (s: TracedLetters
  * Builds the font contents from fitted sheets. Every assigned, fitted letter becomes a
  * glyph; a character assigned twice is an error naming both places.
  */
-export function draftFont(sheets: readonly TracedLetters[], settings: DraftFontSettings): DraftFont {
+export function draftFont(sheets: readonly FittedSheet[], settings: DraftFontSettings): DraftFont {
   const notes: string[] = [];
   const sidebearing = settings.sidebearing ?? Math.round(settings.capHeight * DEFAULT_SIDEBEARING_PER_CAP_HEIGHT);
   const seen = new Map<string, string>();
@@ -101,20 +93,21 @@ export function draftFont(sheets: readonly TracedLetters[], settings: DraftFontS
     }
   });
 
-  const capHeight = Math.round(settings.capHeight);
-  let xHeight = measuredUnits(sheets, (s) => s.metrics.xHeight?.pixels);
-  if (xHeight === null) {
-    xHeight = Math.round(capHeight * FALLBACK_X_HEIGHT_PER_CAP);
-    notes.push(`The x-height was not measured (no x, z, v, w, y or u assigned); ${xHeight} units is a placeholder to change.`);
-  }
+  // The heights the sheets show, and the shared rule for those they do not (core/metrics/font-heights.ts).
+  const heights = fontHeights(
+    {
+      capHeight: settings.capHeight,
+      xHeight: measuredUnits(sheets, (s) => s.metrics.xHeight?.pixels),
+      ascender: measuredUnits(sheets, (s) => s.metrics.ascender?.pixels),
+      descender: measuredUnits(sheets, (s) => s.metrics.descender?.pixels),
+    },
+    settings.unitsPerEm,
+  );
+  const { capHeight, xHeight, ascender, descender, lineGap } = heights;
+  if (heights.placeholders.includes('xHeight')) notes.push(`The x-height was not measured (no x, z, v, w, y or u assigned); ${xHeight} units is a placeholder to change.`);
   const inkBounds = glyphs.map((g) => boundsOfSegments(g.outline.contours.flatMap((c) => contourSegments(c))));
   const inkTop = Math.max(capHeight, ...inkBounds.map((b) => b?.maxY ?? 0));
   const inkBottom = Math.min(0, ...inkBounds.map((b) => b?.minY ?? 0));
-  const ascender = Math.max(measuredUnits(sheets, (s) => s.metrics.ascender?.pixels) ?? Math.round(capHeight * FALLBACK_ASCENDER_PER_CAP), capHeight);
-  const measuredDescender = measuredUnits(sheets, (s) => s.metrics.descender?.pixels);
-  // Without a measured descender, typo ascender − descender spans one em (common practice).
-  const descender = Math.min(measuredDescender ?? ascender - settings.unitsPerEm, 0);
-  const lineGap = defaultLineGap(settings.unitsPerEm, ascender, descender);
   if (inkTop > ascender || inkBottom < descender) notes.push(`Some ink reaches beyond the ascender and descender (${Math.round(inkBottom)} to ${Math.round(inkTop)} units); the font's clipping metrics cover it.`);
   return { familyName: settings.familyName, styleName: settings.styleName, unitsPerEm: settings.unitsPerEm, ascender, descender, lineGap, xHeight, capHeight, glyphs, notes };
 }

@@ -1,7 +1,27 @@
 /** Public API of the pipeline: a scan in, fitted letters in font units out. */
-export { fitTracedSheet, MIN_TOLERANCE_PIXELS, toFontUnits, toScanPixels, traceLetters, type LetterFrame, type TraceLettersOptions, type TracedLetter, type TracedLetters } from './trace-letters.ts';
+export {
+  assembleSheetFit,
+  fitLetterJob,
+  fitTracedSheet,
+  MIN_TOLERANCE_PIXELS,
+  planForLetters,
+  planSheetFit,
+  toFontUnits,
+  toScanPixels,
+  traceLetters,
+  type FittableScan,
+  type FittedSheet,
+  type LetterFitJob,
+  type LetterFitOutcome,
+  type LetterFrame,
+  type PlannedLetter,
+  type SheetFitPlan,
+  type TraceLettersOptions,
+  type TracedLetter,
+  type TracedLetters,
+} from './trace-letters.ts';
 export { draftFont, DraftFontError, type DraftFont, type DraftFontSettings, type DraftGlyph } from './draft-font.ts';
-export { traceSheets, type TraceSheetsOptions } from './trace-sheets.ts';
+export { fitTracedSheets, letterCountMismatch, scaleReference, sheetUnitsPerPixel, traceSheets, traceSheetScan, type ScaleReference, type TraceSheetsOptions } from './trace-sheets.ts';
 export {
   CLEANUP_AREA_RANGE,
   CORNER_ANGLE_RANGE,

@@ -57,13 +57,6 @@ export interface TraceLettersOptions {
    * in the sheet's rows.)
    */
   readonly guides?: GuideHeights;
-  /**
-   * Fit only the letters with these indices (the others are left out of the result),
-   * so a caller can fit a sheet a few letters at a time and stop between them. The
-   * metrics and the scale still come from the whole sheet, so each letter fits exactly
-   * as it would with the rest. Default: every letter.
-   */
-  readonly letterIndices?: readonly number[];
   /** Progress over the whole pipeline (0–1) with the current step. */
   readonly onProgress?: (fraction: number, stage: TraceStage | 'fitting') => void;
 }
@@ -109,12 +102,45 @@ export function traceLetters(image: ScanImage, options: TraceLettersOptions = {}
   });
 }
 
+/** What fitting a sheet's letters reads from its trace: the contours and letters, the edge blur and the notes. */
+export type FittableScan = Pick<TraceScanResult, 'sheet' | 'contours' | 'edgeBlurPx' | 'notes'>;
+
+/** A sheet's fitted letters without the trace they came from (what the font is built from). */
+export type FittedSheet = Omit<TracedLetters, 'scan'>;
+
+/** One letter's fitting work: its chains in font units and the options, plain data a worker thread can take. */
+export interface LetterFitJob {
+  readonly chains: readonly GlyphChain[];
+  readonly options: FitOptions;
+}
+
+/** What fitting one letter gave: its outline and report, or the reason it failed. */
+export type LetterFitOutcome =
+  | { readonly ok: true; readonly outline: GlyphOutline; readonly report: GlyphFitReport }
+  | { readonly ok: false; readonly message: string };
+
+/** Where a planned letter sits, before its outline is known. */
+export type PlannedLetter = Pick<TracedLetter, 'index' | 'character' | 'row' | 'box' | 'frame'>;
+
 /**
- * Fits the letters of an already traced sheet (its `sheet` may have been re-segmented,
- * e.g. to assign characters). Progress runs from 0 to 1 over the letters.
+ * A sheet ready to fit: the scale, tolerance and notes settled, and one job per letter.
+ * The jobs are independent, so they can be fitted in any order or on other threads;
+ * assembleSheetFit puts the outcomes back in the letters' order.
  */
-export function fitTracedSheet(scan: TraceScanResult, options: Omit<TraceLettersOptions, 'scan'> = {}): TracedLetters {
-  const report = options.onProgress;
+export interface SheetFitPlan {
+  readonly metrics: SheetMetrics;
+  readonly unitsPerPixel: number;
+  readonly tolerance: number;
+  readonly notes: readonly string[];
+  readonly letters: readonly PlannedLetter[];
+  readonly jobs: readonly LetterFitJob[];
+}
+
+/**
+ * Settles how a traced sheet's letters are fitted: metrics (with the user's guides),
+ * scale, tolerance and each letter's chains in its own font-unit frame.
+ */
+export function planSheetFit(scan: FittableScan, options: Omit<TraceLettersOptions, 'scan' | 'onProgress'> = {}): SheetFitPlan {
   const measured = measureSheetMetrics(scan.sheet, scan.contours);
   const metrics = options.guides ? withGuideHeights(measured, options.guides) : measured;
   const scale = options.unitsPerPixel ?? scaleFromMetrics(metrics, options.capHeightUnits ?? DEFAULT_CAP_HEIGHT_UNITS);
@@ -123,27 +149,71 @@ export function fitTracedSheet(scan: TraceScanResult, options: Omit<TraceLetters
   // The scan's measured edge blur tells drawn roundings from scan rounding (core/fit/corners.ts).
   const scanBlurPx = options.fit?.scanBlurPx ?? scan.edgeBlurPx ?? undefined;
   const fitOptions: FitOptions = { ...options.fit, tolerance, pixelSize: scale, ...(scanBlurPx === undefined ? {} : { scanBlurPx }) };
-  const notes = [...scan.notes, ...metrics.notes];
-  const only = options.letterIndices === undefined ? null : new Set(options.letterIndices);
-  const chosen = only === null ? scan.sheet.letters : scan.sheet.letters.filter((letter) => only.has(letter.index));
-  const letters = chosen.map((letter, i): TracedLetter => {
-    report?.(i / Math.max(1, chosen.length), 'fitting');
+  const letters: PlannedLetter[] = [];
+  const jobs: LetterFitJob[] = [];
+  for (const letter of scan.sheet.letters) {
     const baselineY = scan.sheet.rows[letter.row]?.baseline ?? letter.box.y + letter.box.height;
     const frame: LetterFrame = { originX: letter.box.x, baselineY, unitsPerPixel: scale };
     const chains: GlyphChain[] = letter.contours.flatMap((index) => {
       const contour = scan.contours[index];
       return contour ? [{ points: contour.points.map((p) => toFontUnits(frame, p)), depth: contour.depth }] : [];
     });
-    const base = { index: letter.index, character: letter.character, row: letter.row, box: letter.box, frame };
-    try {
-      const fitted = fitGlyph(chains, fitOptions);
-      return { ...base, outline: fitted.outline, report: fitted.report, problem: null };
-    } catch (error) {
-      const problem = `Letter ${letter.index + 1}${letter.character ? ` (${letter.character})` : ''} could not be fitted: ${error instanceof Error ? error.message : String(error)}`;
-      notes.push(problem);
-      return { ...base, outline: null, report: null, problem };
-    }
+    letters.push({ index: letter.index, character: letter.character, row: letter.row, box: letter.box, frame });
+    jobs.push({ chains, options: fitOptions });
+  }
+  return { metrics, unitsPerPixel: scale, tolerance, notes: [...scan.notes, ...metrics.notes], letters, jobs };
+}
+
+/**
+ * The part of a plan that fits only the letters with these indices (reading order; an
+ * index the sheet does not have is left out), so a caller can fit a sheet a few
+ * letters at a time and stop between them. The metrics, scale and tolerance stay those
+ * of the whole sheet, so each letter fits exactly as it does with the rest.
+ */
+export function planForLetters(plan: SheetFitPlan, indices: readonly number[]): SheetFitPlan {
+  const only = new Set(indices);
+  const kept = plan.letters.flatMap((letter, i) => (only.has(letter.index) ? [i] : []));
+  return { ...plan, letters: kept.map((i) => plan.letters[i]!), jobs: kept.map((i) => plan.jobs[i]!) };
+}
+
+/** Fits one letter; a letter that cannot be fitted gives the reason instead of throwing. */
+export function fitLetterJob(job: LetterFitJob): LetterFitOutcome {
+  try {
+    const fitted = fitGlyph(job.chains, job.options);
+    return { ok: true, outline: fitted.outline, report: fitted.report };
+  } catch (error) {
+    return { ok: false, message: error instanceof Error ? error.message : String(error) };
+  }
+}
+
+/**
+ * The fitted sheet from its plan and one outcome per job, in the jobs' order. A
+ * letter that failed is kept with `problem` set, and the problem is added to the notes.
+ */
+export function assembleSheetFit(plan: Pick<SheetFitPlan, 'metrics' | 'unitsPerPixel' | 'tolerance' | 'notes' | 'letters'>, outcomes: readonly LetterFitOutcome[]): FittedSheet {
+  if (outcomes.length !== plan.letters.length) throw new RangeError(`A sheet of ${plan.letters.length} letters needs as many fitting outcomes, not ${outcomes.length}.`);
+  const notes = [...plan.notes];
+  const letters = plan.letters.map((base, i): TracedLetter => {
+    const outcome = outcomes[i] as LetterFitOutcome;
+    if (outcome.ok) return { ...base, outline: outcome.outline, report: outcome.report, problem: null };
+    const problem = `Letter ${base.index + 1}${base.character ? ` (${base.character})` : ''} could not be fitted: ${outcome.message}`;
+    notes.push(problem);
+    return { ...base, outline: null, report: null, problem };
+  });
+  return { metrics: plan.metrics, unitsPerPixel: plan.unitsPerPixel, tolerance: plan.tolerance, letters, notes };
+}
+
+/**
+ * Fits the letters of an already traced sheet (its `sheet` may have been re-segmented,
+ * e.g. to assign characters). Progress runs from 0 to 1 over the letters.
+ */
+export function fitTracedSheet(scan: TraceScanResult, options: Omit<TraceLettersOptions, 'scan'> = {}): TracedLetters {
+  const report = options.onProgress;
+  const plan = planSheetFit(scan, options);
+  const outcomes = plan.jobs.map((job, i) => {
+    report?.(i / Math.max(1, plan.jobs.length), 'fitting');
+    return fitLetterJob(job);
   });
   report?.(1, 'done');
-  return { scan, metrics, unitsPerPixel: scale, tolerance, letters, notes };
+  return { scan, ...assembleSheetFit(plan, outcomes) };
 }

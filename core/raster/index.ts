@@ -38,6 +38,7 @@ export { DEFAULT_ISO_LEVEL, isBilevel, traceBoundaries, type BoundaryMethod, typ
 export { boundingBox, boxContains, polygonContains, signedArea } from './polygon-measures.ts';
 export { nestContours } from './nesting.ts';
 export { PIXEL_APERTURE_SIGMA_PX, estimateEdgeBlur } from './edge-blur.ts';
+export { letterNumbers, repeatedCharacters, type RepeatedCharacter } from './repeated-characters.ts';
 export { segmentSheet, splitCharacters, type SegmentSheetOptions, type SheetLetter, type SheetRow, type SheetSegmentation } from './segment-sheet.ts';
 export { DEFAULT_SAUVOLA_WINDOW_MM, scanInk, traceScan, type ScanInk, type TraceScanOptions, type TraceScanResult, type TraceStage } from './trace-scan.ts';
 export { inReadingOrder } from './reading-order.ts';

@@ -10,7 +10,9 @@ export function parseCommandLine<T extends Options>(command: string, args: reado
   try {
     return parseArgs({ args: [...args], options, allowPositionals: true, strict: true });
   } catch (error) {
-    const message = error instanceof Error ? error.message.replace(/\. To specify a positional argument.*$/, '') : String(error);
+    // One line, as every CLI message: node's own messages run over several lines for some mistakes (an option value starting with a dash).
+    const text = error instanceof Error ? error.message : String(error);
+    const message = text.replace(/\. To specify a positional argument.*$/s, '').split('\n').map((line) => line.trim()).filter((line) => line.length > 0).join(' ').replace(/\.+$/, '');
     throw new CliUsageError(`stemline ${command}: ${message}. See "stemline --help".`);
   }
 }

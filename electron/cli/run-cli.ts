@@ -4,6 +4,7 @@
 // decode, a page with no ink) exits 1 with a one-line message naming the problem.
 import { EXIT_BAD_INPUT, EXIT_OK, EXIT_USAGE, helpText, versionLine, type CommandSummary } from './usage.ts';
 import { CliUsageError } from './cli-usage-error.ts';
+import type { ProgressDisplay } from './progress-bar.ts';
 import { InputError } from '../io/input-error.ts';
 import { RasterError } from '../../core/raster/index.ts';
 import { boundariesCommand } from './commands/boundaries.ts';
@@ -14,10 +15,12 @@ import { checkCommand } from './commands/check.ts';
 import { ProjectError } from '../io/project/project-error.ts';
 import { OutlineError } from '../../core/outline/index.ts';
 
-/** Where the CLI writes: stdout for results, stderr for messages. */
+/** Where the CLI writes: stdout for results, stderr for messages, and a progress display when stderr is a terminal. */
 export interface CliStreams {
   out: (text: string) => void;
   err: (text: string) => void;
+  /** Given only when stderr is a terminal (main.ts); commands without it show no progress. */
+  progress?: ProgressDisplay;
 }
 
 /** A command: its summary for `--help` and how to run it. */

@@ -56,6 +56,7 @@ const browserHostApi: StemlineHostApi = {
   listRecentProjects: (args) => postIntent('listRecentProjects', args),
   openRecentProject: (args) => postIntent('openRecentProject', args),
   importScan: (args) => postIntent('importScan', args),
+  decodeScan: (args) => postIntent('decodeScan', args),
   reportProjectState: (args) => postIntent('reportProjectState', args),
   closeWindow: (args) => postIntent('closeWindow', args),
   // A browser tab has no application menu: nothing ever arrives.

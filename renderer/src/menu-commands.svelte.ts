@@ -1,6 +1,7 @@
 // The desktop shell's menu commands in the page: each command of the closed set
 // (api-contract.ts MENU_COMMANDS) runs the page's own action — save, save as, undo,
-// the proof, the export — exactly as the page's buttons and keys do; and the page
+// the proof, the export — exactly as the page's buttons and keys do (Undo and Redo on
+// the history of the screen showing: the sheet's corrections, or the letters' edits); and the page
 // tells its host its project's state whenever that changes, so the shell can title
 // the window, enable its menus and ask before closing unsaved work. A command that
 // edits (undo, redo, select all, delete) acts on a focused text field instead when
@@ -17,6 +18,14 @@ import { deleteSelection, glyphOf, selectPoints } from '../../core/document/inde
 import type { LetterEditing } from './editor/letter-editing.svelte.ts';
 import type { ViewSettings } from './editor/view-settings.svelte.ts';
 
+/** What Edit ▸ Undo and Redo act on: the history of the screen showing. */
+export interface UndoTarget {
+  undo(): unknown;
+  redo(): unknown;
+  readonly canUndo: boolean;
+  readonly canRedo: boolean;
+}
+
 /** What the page does for each command; App.svelte supplies these from its own actions. */
 export interface MenuActions {
   save(): Promise<void>;
@@ -27,8 +36,13 @@ export interface MenuActions {
   /** Opens a scan's file as if chosen in the page. */
   openScan(file: File): Promise<void>;
   exportFont(): Promise<void>;
-  /** The fitted letters' editing (undo and redo act on it), or null before any are fitted. */
+  /** The fitted letters' editing (Select all and Delete act on it), or null before any are fitted. */
   editing(): LetterEditing | null;
+  /**
+   * The history Undo and Redo act on: on the sheet, its corrections; with the letters
+   * showing, their edits; null when neither is showing.
+   */
+  history(): UndoTarget | null;
   /** The letter open in the one-letter editor (Select all and Delete act on its points), or null. */
   openLetter(): GlyphId | null;
   toggleProof(): void;
@@ -114,9 +128,11 @@ export class MenuCommands {
       case 'export-font':
         return a.exportFont();
       case 'undo':
-        return a.editing()?.undo();
+        await a.history()?.undo();
+        return;
       case 'redo':
-        return a.editing()?.redo();
+        await a.history()?.redo();
+        return;
       case 'select-all': {
         const editing = a.editing();
         const id = a.openLetter();

@@ -36,6 +36,7 @@ import { CHROMIUM } from '../support/require-tool.ts';
 import { DEMO_CHARACTERS, demoSheetPng } from '../support/demo-sheet.ts';
 import { denseRingOutline } from '../support/dense-outline.ts';
 import { hundredLetterSheetPng, sheetCharacters, SHEET_LETTER_COUNT } from './hundred-letter-sheet.ts';
+import { measured, type MeasuredTask } from './timing-summary.ts';
 
 /** Port of the benchmark's host: away from `npm start` (5731) and the browser tests' (5742, 5792). */
 const BENCH_HOST_PORT = Number(process.env.STEMLINE_BENCH_PORT ?? 5791);
@@ -67,39 +68,9 @@ export const DRAG_TASK = `editor: drag a point of a ${DRAG_GLYPH_SEGMENTS}-segme
 export const DRAG_INPUT_TASK = `editor: drag a point of a ${DRAG_GLYPH_SEGMENTS}-segment glyph, event timeStamp → end of frame`;
 export const OPEN_TASK = `editor: open a ${SHEET_LETTER_COUNT}-glyph project → first paint of the letters at a glance`;
 
-/** One measured task, as the runner writes it into bench.json. */
-export interface MeasuredTask {
-  task: string;
-  medianMs: number;
-  madMs: number;
-  p95Ms: number;
-  p99Ms: number;
-  samples: number;
-}
-
 export interface EditorMeasurement {
   lines: string[];
   tasks: MeasuredTask[];
-}
-
-/** The q-quantile of `values` by linear interpolation between the nearest ranks. */
-function quantile(values: readonly number[], q: number): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  if (sorted.length === 0) return Number.NaN;
-  const at = (sorted.length - 1) * q;
-  const low = Math.floor(at);
-  const high = Math.ceil(at);
-  return sorted[low]! + (sorted[high]! - sorted[low]!) * (at - low);
-}
-
-/** Median absolute deviation from the median. */
-function medianAbsoluteDeviation(values: readonly number[]): number {
-  const median = quantile(values, 0.5);
-  return quantile(values.map((v) => Math.abs(v - median)), 0.5);
-}
-
-function measured(task: string, samples: number[]): MeasuredTask {
-  return { task, medianMs: quantile(samples, 0.5), madMs: medianAbsoluteDeviation(samples), p95Ms: quantile(samples, 0.95), p99Ms: quantile(samples, 0.99), samples: samples.length };
 }
 
 /** Why the suite cannot run here, or null when it can. */

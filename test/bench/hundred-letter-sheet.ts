@@ -7,7 +7,7 @@ import { createCanvas, type SKRSContext2D } from '@napi-rs/canvas';
 import sharp from 'sharp';
 import { seededRandom } from '../support/seeded-random.ts';
 
-/** Letters on the sheet: the 100-glyph project of the editor's speed goal. */
+/** Letters on the sheet: the 100-glyph project of the editor's speed goal. Every third letter, from the second on, is a bar (kinds: ring, bar, chevron). */
 export const SHEET_LETTER_COUNT = 100;
 /** Letters per row, and so rows per sheet. */
 const PER_ROW = 10;
@@ -56,9 +56,9 @@ function drawLetter(g: SKRSContext2D, kind: number, x: number, y: number, size: 
   g.fill();
 }
 
-/** The sheet as a greyscale PNG. */
-export async function hundredLetterSheetPng(): Promise<Buffer> {
-  const random = seededRandom(SHEET_SEED);
+/** The sheet as a greyscale PNG; another seed gives another sheet of the same layout with other sizes. */
+export async function hundredLetterSheetPng(seed: number = SHEET_SEED): Promise<Buffer> {
+  const random = seededRandom(seed);
   const rows = Math.ceil(SHEET_LETTER_COUNT / PER_ROW);
   const width = 2 * SHEET_MARGIN + PER_ROW * CELL_WIDTH;
   const height = 2 * SHEET_MARGIN + rows * CELL_HEIGHT;

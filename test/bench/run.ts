@@ -15,6 +15,8 @@ import { fitBenchmarks } from './fit.bench.ts';
 import { peerBenchmarks, peerReport } from './peers.bench.ts';
 import { fontBenchmarks } from './font.bench.ts';
 import { measureEditor } from './editor.bench.ts';
+import { measurePipeline } from './pipeline.bench.ts';
+import { measureJobsSpeedUp, measureTenThousandGlyphs } from './batch.bench.ts';
 import { measureRoundTrip, summaryTable } from '../fit/round-trip-measure.ts';
 
 /** Minimum measuring time per task: enough samples for a stable median on a busy 2-core machine. */
@@ -63,6 +65,18 @@ const suites: Suite[] = [
   { name: 'fitting', register: fitBenchmarks },
   { name: 'font', register: fontBenchmarks, options: { iterations: PEER_ITERATIONS, time: 0, warmupIterations: 1 } },
   { name: 'peers', register: peerBenchmarks, options: { iterations: PEER_ITERATIONS, time: 0, warmupIterations: 1 }, report: peerReport },
+  { name: 'pipeline', register: () => undefined, measure: async () => {
+    const { lines, tasks } = await measurePipeline();
+    return { lines, tasks: tasks.map((t) => ({ suite: 'pipeline', ...t })) };
+  } },
+  { name: 'jobs', register: () => undefined, measure: async () => {
+    const { lines, tasks } = await measureJobsSpeedUp();
+    return { lines, tasks: tasks.map((t) => ({ suite: 'jobs', ...t })) };
+  } },
+  { name: 'batch', register: () => undefined, measure: async () => {
+    const { lines, tasks } = await measureTenThousandGlyphs();
+    return { lines, tasks: tasks.map((t) => ({ suite: 'batch', ...t })) };
+  } },
   { name: 'round trip', register: () => undefined, report: roundTripReport },
   { name: 'editor', register: () => undefined, measure: async () => {
     const { lines, tasks } = await measureEditor();

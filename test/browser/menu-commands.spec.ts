@@ -20,7 +20,7 @@ function installBridge(): void {
     if (reply.error) throw Object.assign(new Error(reply.error.message), { kind: reply.error.kind });
     return reply.result;
   };
-  const intents = ['appInfo', 'listProjects', 'openProject', 'saveProject', 'saveProjectAs', 'autosaveProject', 'findRecoveredWork', 'discardRecoveredWork', 'buildProofFont', 'exportFont', 'listRecentProjects', 'openRecentProject', 'importScan', 'closeWindow'];
+  const intents = ['appInfo', 'listProjects', 'openProject', 'saveProject', 'saveProjectAs', 'autosaveProject', 'findRecoveredWork', 'discardRecoveredWork', 'buildProofFont', 'exportFont', 'listRecentProjects', 'openRecentProject', 'importScan', 'decodeScan', 'closeWindow'];
   const bridge: Record<string, unknown> = Object.fromEntries(intents.map((name) => [name, (args: unknown) => call(name, args)]));
   bridge.reportProjectState = (state: unknown) => {
     reports.push(state);
@@ -74,6 +74,72 @@ test.describe('the desktop menus’ commands in the page', () => {
     await expect(page.getByTestId('letter-status')).toContainText('2 contours');
     await menu(page, 'redo');
     await expect(page.getByTestId('undo-steps')).toHaveText('1 edit to undo');
+  });
+
+  test('on the sheet, Undo and Redo and their keys act on the sheet’s corrections, not on the letters’ edits', async ({ page }) => {
+    await openLetterO(page);
+    await menu(page, 'select-all');
+    await menu(page, 'delete-selection');
+    await expect(page.getByTestId('undo-steps')).toHaveText('1 edit to undo');
+    await page.getByRole('button', { name: '← All letters' }).click();
+    await page.getByRole('button', { name: '← Sheet' }).click();
+    const chevron = page.getByTestId('letter-box').nth(2);
+    await chevron.click();
+    await page.keyboard.press('x');
+    await expect(chevron).toHaveAttribute('data-character', 'x');
+    await expect.poll(() => lastReport(page)).toMatchObject({ canUndo: true, canRedo: false });
+
+    await menu(page, 'undo');
+    await expect(chevron).toHaveAttribute('data-character', 'v');
+    await expect.poll(() => lastReport(page)).toMatchObject({ canRedo: true });
+    await menu(page, 'redo');
+    await expect(chevron).toHaveAttribute('data-character', 'x');
+    // The keys the menu lists: Ctrl+Z, and Ctrl+Y for Redo on Windows and Linux (Shift+Ctrl+Z too).
+    await page.keyboard.press('Control+z');
+    await expect(chevron).toHaveAttribute('data-character', 'v');
+    await page.keyboard.press('Control+y');
+    await expect(chevron).toHaveAttribute('data-character', 'x');
+    await page.keyboard.press('Control+z');
+    await expect(chevron).toHaveAttribute('data-character', 'v');
+    await page.keyboard.press('Shift+Control+z');
+    await expect(chevron).toHaveAttribute('data-character', 'x');
+
+    // The letter's own edit is still there, to undo in the editor.
+    await page.getByRole('button', { name: 'Back to the fitted letters' }).click();
+    await page.getByTestId('letter-thumbnail').filter({ has: page.locator('text=o') }).first().click();
+    await expect(page.getByTestId('undo-steps')).toHaveText('1 edit to undo');
+    await expect.poll(() => lastReport(page)).toMatchObject({ canUndo: true, canRedo: false });
+  });
+
+  test('on the sheet, Edit ▸ Undo and Redo take back and make again a change of the fit settings, fitting the letters again', async ({ page }) => {
+    await openFittedDemoSheet(page);
+    /** The fitted letters' outlines, read at a glance, coming back to the sheet. */
+    const outlines = async () => {
+      await page.getByRole('button', { name: 'Back to the fitted letters' }).click();
+      const paths = await page.getByTestId('letter-thumbnail').locator('path').evaluateAll((all) => all.map((p) => p.getAttribute('d') ?? ''));
+      await page.getByRole('button', { name: '← Sheet' }).click();
+      return paths;
+    };
+    await page.getByRole('button', { name: '← Sheet' }).click();
+    const settled = () => expect(page.getByTestId('sheet-screen')).toHaveAttribute('data-phase', 'traced');
+    const economy = await outlines();
+    const mode = page.getByTestId('fit-mode');
+    await mode.selectOption('smooth');
+    await settled();
+    const smooth = await outlines();
+    expect(smooth).not.toEqual(economy);
+    // No correction was made: the settings change alone enables Undo.
+    await expect.poll(() => lastReport(page)).toMatchObject({ canUndo: true, canRedo: false });
+
+    await menu(page, 'undo');
+    await expect(mode).toHaveValue('economy');
+    await settled();
+    expect(await outlines()).toEqual(economy);
+    await expect.poll(() => lastReport(page)).toMatchObject({ canRedo: true });
+    await page.keyboard.press('Control+y');
+    await expect(mode).toHaveValue('smooth');
+    await settled();
+    expect(await outlines()).toEqual(smooth);
   });
 
   test('Zoom, combs, scan backdrop and the proof change what the editor’s own controls show', async ({ page }) => {

@@ -8,6 +8,7 @@ import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { request } from 'node:http';
+import sharp from 'sharp';
 import { startBrowserHost, type BrowserHost } from '../../electron/browser-host.ts';
 import { APP_VERSION } from '../../electron/app-identity.ts';
 import { contentSecurityPolicyHeader } from '../../electron/shell/content-security-policy.ts';
@@ -118,6 +119,17 @@ describe('browser-mode host', () => {
     const reply = await fetch(new URL('api/appInfo', host.url), { method: 'POST', body: JSON.stringify({ padding: 'x'.repeat(2 << 20) }) });
     expect(reply.status).toBe(413);
     expect(await reply.json()).toMatchObject({ error: { kind: 'bad-arguments', message: expect.stringMatching(/larger than the 1 MiB the browser host takes/) } });
+  });
+
+  it('takes a TIFF to decode well beyond the small requests’ limit: an uncompressed grey page of a few MiB', async () => {
+    const side = 1500;
+    const tiff = await sharp(Buffer.alloc(side * side, 200), { raw: { width: side, height: side, channels: 1 } }).tiff({ compression: 'none' }).toBuffer();
+    expect(tiff.length).toBeGreaterThan(2 << 20);
+    const reply = await fetch(new URL('api/decodeScan', host.url), { method: 'POST', body: JSON.stringify({ name: 'flat.tif', base64: tiff.toString('base64') }) });
+    const body = (await reply.json()) as { result: { width: number; height: number }; error?: unknown };
+    expect(body.error).toBeUndefined();
+    expect(reply.status).toBe(200);
+    expect(body.result).toMatchObject({ width: side, height: side, format: 'tiff' });
   });
 
   it('refuses a project name leading out of the workspace over HTTP too', async () => {

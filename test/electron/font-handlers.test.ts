@@ -74,10 +74,28 @@ describe('the proof font', () => {
   it('says which glyph to change when the glyphs cannot make a font', async () => {
     const host = browserHostFixture();
     const content = sampleFont();
-    const twice = { ...content, glyphs: [...content.glyphs, { ...content.glyphs[0]!, name: 'I.alt' }] };
-    const error = await refusal(host.call('buildProofFont', twice));
+    // A glyph for A named like the glyph for I: the writer's own check, passed on with the glyph it names.
+    const sameName = { ...content, glyphs: [...content.glyphs, { ...content.glyphs[0]!, unicodes: ['0041'], name: 'I' }] };
+    const error = await refusal(host.call('buildProofFont', sameName));
     expect(error.kind).toBe('font-build');
-    expect(error.message).toMatch(/^The font could not be built \(glyph "I\.alt"\): .*I/);
+    expect(error.message).toMatch(/^The font could not be built \(glyph "I"\): Glyphs 1 and 3 are both named "I"/);
+  });
+
+  it('names the letters of the scan that share a character, and where to fix them, for the proof and the export alike', async () => {
+    const host = browserHostFixture();
+    const content = sampleFont();
+    const i = content.glyphs[0]!;
+    // Letters 1 and 27 of the scan both typed "I" (source.letter is the reading-order index).
+    const twice = { ...content, glyphs: [...content.glyphs, { ...i, source: { scan: 'scan-1', letter: 26 } }] };
+    for (const intent of ['buildProofFont', 'exportFont'] as const) {
+      const error = await refusal(host.call(intent, intent === 'exportFont' ? { ...twice, name: 'draft.otf' } : twice));
+      expect(error.kind, intent).toBe('font-build');
+      expect(error.message, intent).toBe('The font could not be built: “I” is assigned to letters 1 and 27 of the scan, and a font has one glyph per character. Go back to the sheet, where those boxes are marked: select one and type its right character, or, if they are pieces of one letter, select them and merge them. Then fit the letters again.');
+    }
+    expect(readdirSync(host.workspace)).toEqual([]);
+    // A letter of the scan clashing with a glyph imported from a font (no source): both are named.
+    const imported = { ...content, glyphs: [...content.glyphs, { unicodes: ['0049'], name: 'I.imported', advanceWidth: 300, outline: { contours: [] } }] };
+    expect((await refusal(host.call('buildProofFont', imported))).message).toBe('The font could not be built: “I” belongs to letter 1 of the scan and glyph 3 ("I.imported"), and a font has one glyph per character. Retype that letter on the sheet and fit again.');
   });
 
   it('refuses malformed arguments, naming the field', async () => {

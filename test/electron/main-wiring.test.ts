@@ -319,7 +319,7 @@ describe('the main process as wired to Electron', () => {
     const help = (electron.menus.at(-1) as { label: string; submenu: { label?: string; click?: () => void }[] }[]).find((m) => m.label === 'Help')!;
     help.submenu.find((i) => i.label === 'Stemline user guide')!.click!();
     await vi.waitFor(() => expect(electron.calls.filter((c) => c.name === 'shell.openPath')).toHaveLength(1));
-    expect(electron.calls.find((c) => c.name === 'shell.openPath')!.args).toEqual([join(appFolder, 'app', 'README.md')]);
+    expect(electron.calls.find((c) => c.name === 'shell.openPath')!.args).toEqual([join(appFolder, 'app', 'docs', 'guide', 'README.md')]);
     expect(electron.calls.some((c) => c.name === 'shell.openExternal')).toBe(false);
     const { readFileSync } = await import('node:fs');
     expect(readFileSync(new URL('../../electron/main.ts', import.meta.url), 'utf8')).not.toMatch(/openExternal\(/);

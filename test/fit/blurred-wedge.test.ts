@@ -4,7 +4,7 @@
 // counting the share of samples centred at the predicted tip that fall inside the
 // wedge. At the tip the share must be one half.
 import { describe, expect, it } from 'vitest';
-import { blurredWedgeInset } from '../../core/fit/blurred-wedge.ts';
+import { BLURRED_WEDGE_INSET_TABLE, blurredWedgeInset, insetByBisection } from '../../core/fit/blurred-wedge.ts';
 import { cornerReachFor } from '../../core/fit/corners.ts';
 import { seededRandom } from '../support/seeded-random.ts';
 
@@ -32,6 +32,12 @@ describe('blurred corner inset', () => {
       expect(sampledCoverage(t, opening * DEGREES, 200_000)).toBeCloseTo(0.5, 2);
     });
   }
+
+  it('has a written-out table equal to the integral solved again at every degree', () => {
+    expect(BLURRED_WEDGE_INSET_TABLE).toHaveLength(181);
+    expect(BLURRED_WEDGE_INSET_TABLE[0]).toBe(BLURRED_WEDGE_INSET_TABLE[1]);
+    for (let degrees = 1; degrees <= 180; degrees++) expect(BLURRED_WEDGE_INSET_TABLE[degrees], `${degrees}°`).toBe(insetByBisection((degrees * Math.PI) / 180));
+  });
 
   it('does not move a straight edge, and moves sharper corners farther', () => {
     expect(blurredWedgeInset(Math.PI)).toBeLessThan(0.01);

@@ -3,10 +3,14 @@
 // is accepted, and the options they give the raster stage and the fitter.
 import { describe, expect, it } from 'vitest';
 import {
+  assembleSheetFit,
   CORNER_ANGLE_RANGE,
   DEFAULT_PIPELINE_SETTINGS,
+  fitLetterJob,
   fitOptionsOf,
   fitTracedSheet,
+  planForLetters,
+  planSheetFit,
   SettingsError,
   TOLERANCE_RANGE,
   traceScanOptionsOf,
@@ -77,7 +81,8 @@ describe('fitting some letters of a sheet', () => {
   it('gives each letter exactly the outline it gets when the whole sheet is fitted', () => {
     const scan = traceScan({ raster: sheet() }, { characters: 'HxH' });
     const all = fitTracedSheet(scan);
-    const some = fitTracedSheet(scan, { letterIndices: [2, 0] });
+    const part = planForLetters(planSheetFit(scan), [2, 0, 7]);
+    const some = assembleSheetFit(part, part.jobs.map(fitLetterJob));
     expect(some.letters.map((l) => l.index)).toEqual([0, 2]);
     expect(some.unitsPerPixel).toBe(all.unitsPerPixel);
     expect(some.letters[1]?.outline).toEqual(all.letters[2]?.outline);

@@ -3,11 +3,13 @@
 // writing an OpenType (CFF) test font and printing one line per glyph. A contract
 // other tools rely on: extend it compatibly.
 import { basename } from 'node:path';
-import { decodeScanFile } from '../../io/decode-scan.ts';
+import { availableParallelism } from 'node:os';
 import { saveFont } from '../../io/font/write-font-file.ts';
 import { FontError } from '../../io/font/font-error.ts';
 import { glyphNameForCodePoint } from '../../io/font/glyph-names.ts';
-import { draftFont, DraftFontError, traceSheets, type DraftFont, type DraftGlyph } from '../../../core/pipeline/index.ts';
+import { draftFont, DraftFontError, type DraftFont, type DraftGlyph, type FittedSheet } from '../../../core/pipeline/index.ts';
+import { fitSheetFiles } from '../../batch/fit-sheet-files.ts';
+import { runnerForJobs } from '../../batch/batch-runner.ts';
 import { DEFAULT_CAP_HEIGHT_UNITS, DEFAULT_UNITS_PER_EM } from '../../../core/metrics/index.ts';
 import { CliUsageError } from '../cli-usage-error.ts';
 import { numberOption, parseCommandLine } from '../parse-options.ts';
@@ -19,10 +21,15 @@ import { FIT_OPTIONS_HELP, fitOptionSpec, fitOptionsFrom } from './fit-cli-optio
 const COMMAND = 'build';
 /** Units per em accepted (OpenType 'head' table: 16 to 16384). */
 const UPM_RANGE = { min: 16, max: 16384 } as const;
+/**
+ * Most worker threads accepted: more than the cores of any workstation gains
+ * nothing, and each running thread holds a sheet's image while it traces it.
+ */
+const MAX_JOBS = 256;
 
 export const buildCommand: CliCommand = {
   name: COMMAND,
-  synopsis: 'build SHEET... --chars "STRING" -o FONT.otf [--family NAME] [--style NAME] [--upm N] [--cap-height UNITS]',
+  synopsis: 'build SHEET... --chars "STRING" -o FONT.otf [--family NAME] [--style NAME] [--upm N] [--cap-height UNITS] [--jobs N]',
   purpose: 'turn sheets of drawn letters into an OpenType (CFF) test font, one line printed per glyph',
   options: [
     '--chars STRING                 the characters drawn, in reading order across the sheets (spaces ignored)',
@@ -31,6 +38,7 @@ export const buildCommand: CliCommand = {
     '--style NAME                   style name (default Regular)',
     '--upm N                        units per em (default 1000)',
     `--cap-height UNITS             the drawn cap height becomes this (default ${DEFAULT_CAP_HEIGHT_UNITS} per 1000 units per em)`,
+    '--jobs N                       letters traced and fitted on N threads at once (default: one per sheet, up to the number of cores); the font is the same for any N',
     ...FIT_OPTIONS_HELP,
     ...SCAN_OPTIONS_HELP.filter((line) => !line.startsWith('--characters')),
   ],
@@ -42,6 +50,7 @@ export const buildCommand: CliCommand = {
       style: { type: 'string' },
       upm: { type: 'string' },
       'cap-height': { type: 'string' },
+      jobs: { type: 'string' },
       ...fitOptionSpec,
       ...scanOptionSpec,
     });
@@ -54,17 +63,27 @@ export const buildCommand: CliCommand = {
     const capHeight = numberOption(COMMAND, 'cap-height', values['cap-height'], 1, unitsPerEm) ?? Math.round((DEFAULT_CAP_HEIGHT_UNITS * unitsPerEm) / DEFAULT_UNITS_PER_EM);
     const settings = scanSettingsFrom(COMMAND, values);
     const fit = fitOptionsFrom(COMMAND, values);
+    const jobs = jobsOption(values.jobs, positionals.length);
 
-    const images = [];
-    for (const sheet of positionals) {
-      const scan = await decodeScanFile(sheet);
-      for (const note of scan.notes) streams.err(`note: ${note}\n`);
-      const dpi = settings.dpi ?? scan.dpi;
-      images.push({ raster: dpi === undefined ? scan.raster : { ...scan.raster, dpi } });
-    }
     let font: DraftFont;
+    const runner = runnerForJobs(jobs);
+    const progress = streams.progress;
     try {
-      const sheets = traceSheets(images, values.chars, { scan: settings.trace, fit, capHeightUnits: capHeight });
+      let sheets: FittedSheet[];
+      try {
+        sheets = await fitSheetFiles(positionals, values.chars, { scan: settings.trace, dpi: settings.dpi, fit, capHeightUnits: capHeight }, runner, {
+          onDecodeNotes: (_sheet, notes) => {
+            for (const note of notes) {
+              progress?.clear();
+              streams.err(`note: ${note}\n`);
+            }
+          },
+          ...(progress ? { onProgress: (state) => progress.show(state) } : {}),
+        });
+      } finally {
+        progress?.clear();
+        await runner.close();
+      }
       font = draftFont(sheets, {
         familyName: values.family ?? familyFromFileName(values.output),
         styleName: values.style ?? 'Regular',
@@ -93,6 +112,21 @@ export const buildCommand: CliCommand = {
     return EXIT_OK;
   },
 };
+
+/**
+ * `--jobs N`: a whole number of threads from 1 to MAX_JOBS. By default one per sheet,
+ * up to one per core: a second thread costs about 1.8–2 s of CPU time to start and to
+ * compile the fitter again (measured by `npm run bench -- jobs`), more than a single
+ * 62-letter sheet's fitting (about 1.1 s), so one sheet is built on one thread.
+ */
+export function jobsOption(value: string | undefined, sheetCount = Infinity): number {
+  if (value === undefined) return Math.max(1, Math.min(availableParallelism(), sheetCount));
+  const jobs = Number(value);
+  if (!/^\s*\d+\s*$/.test(value) || !Number.isInteger(jobs) || jobs < 1 || jobs > MAX_JOBS) {
+    throw new CliUsageError(`stemline ${COMMAND}: --jobs takes a whole number of threads from 1 to ${MAX_JOBS}, not "${value}".`);
+  }
+  return jobs;
+}
 
 /** "harbour-signs.otf" → "Harbour Signs". */
 function familyFromFileName(path: string): string {

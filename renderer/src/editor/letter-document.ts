@@ -4,9 +4,9 @@
  * font's vertical metrics; and each letter's open warnings, from the outline checks on
  * its current outline plus the fit's tolerance warnings.
  */
-import { createDocument, DEFAULT_FONT_METRICS, type DocumentGlyph, type FontMetrics, type GlyphDocument, type GlyphId } from '../../../core/document/index.ts';
+import { createDocument, type DocumentGlyph, type FontMetrics, type GlyphDocument, type GlyphId } from '../../../core/document/index.ts';
 import { checkOutline, type OutlineWarning } from '../../../core/checks/index.ts';
-import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, defaultLineGap, spaceGlyph } from '../../../core/metrics/index.ts';
+import { DEFAULT_SIDEBEARING_PER_CAP_HEIGHT, DEFAULT_UNITS_PER_EM, fontHeights, spaceGlyph } from '../../../core/metrics/index.ts';
 import type { Point } from '../../../core/geometry/vector.ts';
 import type { GlyphOutline } from '../../../core/outline/index.ts';
 import type { FittedLetter, FittedSheet } from '../scan/trace-protocol.ts';
@@ -26,23 +26,14 @@ export function letterGlyphId(letter: FittedLetter): GlyphId {
 }
 
 /**
- * Font metrics from the sheet: measured heights, the em's defaults where not
- * measured, and the line gap that tops the lines up to 1.2 em (core/metrics/line-gap.ts).
+ * Font metrics from the sheet: the measured heights, and for those the sheet does not
+ * show the share of the cap height the command line's build gives them too
+ * (core/metrics/font-heights.ts), with the line gap that tops the lines up to 1.2 em.
  * These are the defaults the designer's values override.
  */
-export function fontMetricsOf(sheet: FittedSheet): FontMetrics {
-  const round = (v: number | null, fallback: number) => (v === null ? fallback : Math.round(v));
-  const unitsPerEm = DEFAULT_FONT_METRICS.unitsPerEm;
-  const ascender = round(sheet.metrics.ascender, DEFAULT_FONT_METRICS.ascender);
-  const descender = round(sheet.metrics.descender, DEFAULT_FONT_METRICS.descender);
-  return {
-    unitsPerEm,
-    capHeight: Math.round(sheet.metrics.capHeight),
-    xHeight: round(sheet.metrics.xHeight, DEFAULT_FONT_METRICS.xHeight),
-    ascender,
-    descender,
-    lineGap: defaultLineGap(unitsPerEm, ascender, descender),
-  };
+export function fontMetricsOf(sheet: Pick<FittedSheet, 'metrics'>): FontMetrics {
+  const { placeholders: _placeholders, ...metrics } = fontHeights(sheet.metrics, DEFAULT_UNITS_PER_EM);
+  return metrics;
 }
 
 /** The document for a fitted sheet, and the letters it holds (letters that failed to fit are left out). */

@@ -9,7 +9,8 @@ const BASE64_CHUNK_BYTES = 0x8000;
 
 const copies = new WeakMap<Blob, Promise<EmbeddedScan>>();
 
-function toBase64(bytes: Uint8Array): string {
+/** Bytes as standard base64, built in chunks so a scan of tens of MiB converts. */
+export function toBase64(bytes: Uint8Array): string {
   let binary = '';
   for (let start = 0; start < bytes.length; start += BASE64_CHUNK_BYTES) {
     binary += String.fromCharCode(...bytes.subarray(start, start + BASE64_CHUNK_BYTES));

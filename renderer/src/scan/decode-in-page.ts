@@ -1,8 +1,9 @@
 // Decodes a scan in the page, for browser mode: the browser's own image decoder
 // turns the file into pixels (EXIF orientation applied, no colour conversion), and
 // this module flattens them onto white paper as 8-bit greys, so the same core
-// tracing path runs as in the desktop app and the CLI. TIFF cannot be decoded by
-// browsers: those scans are read by the desktop app and the command line.
+// tracing path runs as in the desktop app and the CLI. Browsers cannot decode TIFF:
+// read-scan.ts hands those files to the host, which decodes them with the command
+// line's reader and gives back a PNG that this module then decodes.
 import { readImageHeader } from '../../../core/raster/image-header.ts';
 
 /**
@@ -35,9 +36,10 @@ const LUMA_BLUE = 0.0722;
 export async function decodeScanInPage(file: Blob, name: string): Promise<PageScan> {
   const bytes = new Uint8Array(await file.arrayBuffer());
   const header = readImageHeader(bytes);
-  if (header === null) throw new PageDecodeError(`${name}: not an image Stemline can read. Use PNG, JPEG or WebP in the browser (TIFF too in the desktop app).`);
+  if (header === null) throw new PageDecodeError(`${name}: not an image Stemline can read. Use PNG, JPEG, TIFF or WebP.`);
   if (header.format === 'tiff') {
-    throw new PageDecodeError(`${name}: browsers cannot decode TIFF. Open it in the Stemline desktop app or with "stemline boundaries", or save the scan as PNG.`);
+    // read-scan.ts sends TIFF to the host; reaching here is a slip in the app, not the file.
+    throw new PageDecodeError(`${name}: a TIFF reached the page's own decoder, which cannot read it. This is a bug in the app: please report it.`);
   }
   const pixels = header.width * header.height;
   if (pixels > PAGE_PIXEL_BUDGET) {

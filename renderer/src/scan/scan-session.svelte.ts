@@ -3,7 +3,7 @@
 // settings (with undo and redo of both), fitting the assigned letters a few at a time
 // so it can be cancelled, and any problem to show. Components render it and call its
 // methods; nothing else changes it.
-import { decodeScanInPage } from './decode-in-page.ts';
+import { readScan } from './read-scan.ts';
 import { TraceClient } from './trace-client.ts';
 import type { FittedSheet, TracedSheet } from './trace-protocol.ts';
 import type { SheetEdit } from '../../../core/raster/index.ts';
@@ -74,6 +74,8 @@ export class ScanSession {
   stageLabel = $state('');
   sheet = $state<TracedSheet | null>(null);
   problem = $state<string | null>(null);
+  /** What the user should know about how the scan file was read (e.g. only the first of its pages). */
+  readNotes = $state.raw<readonly string[]>([]);
   /** The assigned letters fitted into outlines, or null until "Fit" has run. */
   fitted = $state.raw<FittedSheet | null>(null);
   /** The scan file the sheet was traced from (its bytes go into the project). */
@@ -115,7 +117,7 @@ export class ScanSession {
     this.stageLabel = 'Reading the scan';
     this.progress = 0;
     try {
-      const scan = await decodeScanInPage(file, file.name);
+      const { scan, image, notes } = await readScan(file, file.name);
       this.phase = 'tracing';
       this.client ??= new TraceClient();
       const sheet = await this.client.trace(scan.raster, settings.scan, (fraction, stage) => {
@@ -123,7 +125,9 @@ export class ScanSession {
         this.stageLabel = STAGE_LABELS[stage] ?? stage;
       });
       if (this.imageUrl) URL.revokeObjectURL(this.imageUrl);
-      this.imageUrl = URL.createObjectURL(file);
+      // A TIFF is shown as the host's PNG of it: browsers cannot show TIFF either.
+      this.imageUrl = URL.createObjectURL(image);
+      this.readNotes = notes;
       this.fileName = file.name;
       this.file = file;
       this.characters = null;

@@ -27,7 +27,7 @@ export type TraceRequest =
    */
   | { type: 'correct'; id: number; edits: readonly SheetEdit[] }
   /**
-   * Fits assigned letters of the last traced sheet (core/pipeline fitTracedSheet):
+   * Fits assigned letters of the last traced sheet (core/pipeline fitLetterJob):
    * those in `letters` (reading-order indices), or all of them. The page fits a few at
    * a time, so it can stop between them.
    */

@@ -1,7 +1,7 @@
 // The tracing worker: runs core's traceScan on a decoded scan and keeps the result,
 // so that correcting the sheet (assigning characters, merging, splitting and cutting
 // letters, setting guides) re-runs only the corrections, and fitting the assigned
-// letters (core/pipeline fitTracedSheet) needs no second trace. Each correction's
+// letters (core/pipeline planSheetFit, then fitLetterJob per letter) needs no second trace. Each correction's
 // result is kept, so undoing one (the same list, shortened) costs nothing and a cut
 // — which traces ink again — runs only when it is new. It keeps the scan's pixels,
 // to trace them again when the user changes a scan setting and to show the ink a
@@ -21,9 +21,10 @@ import {
   type SheetEdit,
   type TraceScanResult,
 } from '../../../core/raster/index.ts';
-import { fitOptionsOf, fitTracedSheet, sameScanSettings, SettingsError, traceScanOptionsOf, validateFitSettings, validateScanSettings, type ScanSettings } from '../../../core/pipeline/index.ts';
+import { assembleSheetFit, fitLetterJob, fitOptionsOf, planForLetters, planSheetFit, sameScanSettings, SettingsError, traceScanOptionsOf, validateFitSettings, validateScanSettings, type ScanSettings, type SheetFitPlan } from '../../../core/pipeline/index.ts';
 import { measureSheetMetrics, withGuideHeights } from '../../../core/metrics/index.ts';
 import type { FitSettings } from '../../../core/pipeline/index.ts';
+import { fittedMetrics } from './fitted-metrics.ts';
 import { inkDigest } from './ink-digest.ts';
 import type { FittedSheet, InkPreview, RetracedSheet, TraceReply, TraceRequest, TracedSheet } from './trace-protocol.ts';
 
@@ -92,18 +93,39 @@ function correct(edits: readonly SheetEdit[], id: number): CorrectedSheet {
   return current();
 }
 
-/** Fits the assigned letters of the corrected sheet, with its guides; unassigned letters are left out. */
-function fitAssigned(scan: TraceScanResult, state: CorrectedSheet, id: number, settings: FitSettings, only: readonly number[] | undefined): FittedSheet {
+/**
+ * The fit plan of the corrected sheet's assigned letters with these settings, kept
+ * while the sheet and the settings stay the same: the page asks for a few letters at a
+ * time, and each request fits its letters from the one plan (the whole sheet's scale
+ * and tolerance).
+ */
+let lastPlan: { state: CorrectedSheet; settings: string; plan: SheetFitPlan; assigned: TraceScanResult['sheet'] } | null = null;
+
+function planAssigned(scan: TraceScanResult, state: CorrectedSheet, settings: FitSettings): { plan: SheetFitPlan; assigned: TraceScanResult['sheet'] } {
+  const key = JSON.stringify(settings);
+  if (lastPlan && lastPlan.state === state && lastPlan.settings === key) return lastPlan;
   const assigned = { ...state.sheet, letters: state.sheet.letters.filter((l) => l.character !== null) };
   if (assigned.letters.length === 0) throw new Error('No letter has a character yet: type the characters on the sheet and assign them first.');
-  const fitted = fitTracedSheet({ ...scan, contours: state.contours as TraceScanResult['contours'], sheet: assigned }, {
-    guides: state.guides,
-    fit: fitOptionsOf(validateFitSettings(settings)),
-    ...(only === undefined ? {} : { letterIndices: only }),
-    onProgress: (fraction, stage) => reply({ type: 'progress', id, fraction, stage }),
+  const plan = planSheetFit({ ...scan, contours: state.contours as TraceScanResult['contours'], sheet: assigned }, { guides: state.guides, fit: fitOptionsOf(validateFitSettings(settings)) });
+  lastPlan = { state, settings: key, plan, assigned };
+  return lastPlan;
+}
+
+/**
+ * Fits assigned letters of the corrected sheet, with its guides: those in `only`
+ * (reading-order indices), or all of them; unassigned letters are left out. Each
+ * letter is one core fitLetterJob, as the command line's batch build fits them.
+ */
+function fitAssigned(scan: TraceScanResult, state: CorrectedSheet, id: number, settings: FitSettings, only: readonly number[] | undefined): FittedSheet {
+  const { plan: whole, assigned } = planAssigned(scan, state, settings);
+  const plan = only === undefined ? whole : planForLetters(whole, only);
+  const outcomes = plan.jobs.map((job, i) => {
+    reply({ type: 'progress', id, fraction: i / Math.max(1, plan.jobs.length), stage: 'fitting' });
+    return fitLetterJob(job);
   });
+  reply({ type: 'progress', id, fraction: 1, stage: 'done' });
+  const fitted = assembleSheetFit(plan, outcomes);
   const contoursOf = new Map(assigned.letters.map((l) => [l.index, l.contours]));
-  const units = (height: { pixels: number } | null) => (height ? height.pixels * fitted.unitsPerPixel : null);
   return {
     letters: fitted.letters.map((letter) => ({
       index: letter.index,
@@ -117,12 +139,7 @@ function fitAssigned(scan: TraceScanResult, state: CorrectedSheet, id: number, s
       maxDeviation: letter.report?.maxDeviation ?? null,
       problem: letter.problem,
     })),
-    metrics: {
-      capHeight: (fitted.metrics.capHeight?.pixels ?? fitted.metrics.letterHeightPixels) * fitted.unitsPerPixel,
-      xHeight: units(fitted.metrics.xHeight),
-      ascender: units(fitted.metrics.ascender),
-      descender: units(fitted.metrics.descender),
-    },
+    metrics: fittedMetrics(fitted),
     unitsPerPixel: fitted.unitsPerPixel,
     tolerance: fitted.tolerance,
     notes: fitted.notes,
