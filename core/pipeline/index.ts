@@ -4,6 +4,7 @@ export {
   fitLetterJob,
   fitTracedSheet,
   MIN_TOLERANCE_PIXELS,
+  planForLetters,
   planSheetFit,
   toFontUnits,
   toScanPixels,
@@ -21,3 +22,27 @@ export {
 } from './trace-letters.ts';
 export { draftFont, DraftFontError, type DraftFont, type DraftFontSettings, type DraftGlyph } from './draft-font.ts';
 export { fitTracedSheets, letterCountMismatch, scaleReference, sheetUnitsPerPixel, traceSheets, traceSheetScan, type ScaleReference, type TraceSheetsOptions } from './trace-sheets.ts';
+export {
+  CLEANUP_AREA_RANGE,
+  CORNER_ANGLE_RANGE,
+  DEFAULT_FIT_SETTINGS,
+  DEFAULT_PIPELINE_SETTINGS,
+  DEFAULT_SCAN_SETTINGS,
+  FIT_MODES,
+  fitOptionsOf,
+  GREY_LEVEL_RANGE,
+  inRange,
+  sameFitSettings,
+  sameScanSettings,
+  SettingsError,
+  TOLERANCE_RANGE,
+  traceScanOptionsOf,
+  validateFitSettings,
+  validatePipelineSettings,
+  validateScanSettings,
+  type FitSettings,
+  type PipelineSettings,
+  type ScanSettings,
+  type SettingRange,
+  type ThresholdSetting,
+} from './pipeline-settings.ts';

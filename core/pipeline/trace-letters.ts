@@ -164,6 +164,18 @@ export function planSheetFit(scan: FittableScan, options: Omit<TraceLettersOptio
   return { metrics, unitsPerPixel: scale, tolerance, notes: [...scan.notes, ...metrics.notes], letters, jobs };
 }
 
+/**
+ * The part of a plan that fits only the letters with these indices (reading order; an
+ * index the sheet does not have is left out), so a caller can fit a sheet a few
+ * letters at a time and stop between them. The metrics, scale and tolerance stay those
+ * of the whole sheet, so each letter fits exactly as it does with the rest.
+ */
+export function planForLetters(plan: SheetFitPlan, indices: readonly number[]): SheetFitPlan {
+  const only = new Set(indices);
+  const kept = plan.letters.flatMap((letter, i) => (only.has(letter.index) ? [i] : []));
+  return { ...plan, letters: kept.map((i) => plan.letters[i]!), jobs: kept.map((i) => plan.jobs[i]!) };
+}
+
 /** Fits one letter; a letter that cannot be fitted gives the reason instead of throwing. */
 export function fitLetterJob(job: LetterFitJob): LetterFitOutcome {
   try {

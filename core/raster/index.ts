@@ -40,7 +40,7 @@ export { nestContours } from './nesting.ts';
 export { PIXEL_APERTURE_SIGMA_PX, estimateEdgeBlur } from './edge-blur.ts';
 export { letterNumbers, repeatedCharacters, type RepeatedCharacter } from './repeated-characters.ts';
 export { segmentSheet, splitCharacters, type SegmentSheetOptions, type SheetLetter, type SheetRow, type SheetSegmentation } from './segment-sheet.ts';
-export { DEFAULT_SAUVOLA_WINDOW_MM, traceScan, type TraceScanOptions, type TraceScanResult, type TraceStage } from './trace-scan.ts';
+export { DEFAULT_SAUVOLA_WINDOW_MM, scanInk, traceScan, type ScanInk, type TraceScanOptions, type TraceScanResult, type TraceStage } from './trace-scan.ts';
 export { inReadingOrder } from './reading-order.ts';
 export { SheetEditError } from './sheet-edit-error.ts';
 export { mergeLetters, unionOfBoxes } from './merge-letters.ts';
@@ -58,4 +58,5 @@ export {
   type SheetEdit,
   type SheetGuides,
 } from './sheet-edits.ts';
+export { rebaseSheetEdits, sameLetters, SAME_BOX_TOLERANCE_PX, SAME_PLACE_OVERLAP, type RebasedEdits } from './rebase-sheet-edits.ts';
 export { BILEVEL_SMOOTHING_SIGMA_PX, smoothedBilevelBlurPx, smoothedMaskField } from './bilevel-smoothing.ts';

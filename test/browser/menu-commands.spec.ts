@@ -111,6 +111,37 @@ test.describe('the desktop menus’ commands in the page', () => {
     await expect.poll(() => lastReport(page)).toMatchObject({ canUndo: true, canRedo: false });
   });
 
+  test('on the sheet, Edit ▸ Undo and Redo take back and make again a change of the fit settings, fitting the letters again', async ({ page }) => {
+    await openFittedDemoSheet(page);
+    /** The fitted letters' outlines, read at a glance, coming back to the sheet. */
+    const outlines = async () => {
+      await page.getByRole('button', { name: 'Back to the fitted letters' }).click();
+      const paths = await page.getByTestId('letter-thumbnail').locator('path').evaluateAll((all) => all.map((p) => p.getAttribute('d') ?? ''));
+      await page.getByRole('button', { name: '← Sheet' }).click();
+      return paths;
+    };
+    await page.getByRole('button', { name: '← Sheet' }).click();
+    const settled = () => expect(page.getByTestId('sheet-screen')).toHaveAttribute('data-phase', 'traced');
+    const economy = await outlines();
+    const mode = page.getByTestId('fit-mode');
+    await mode.selectOption('smooth');
+    await settled();
+    const smooth = await outlines();
+    expect(smooth).not.toEqual(economy);
+    // No correction was made: the settings change alone enables Undo.
+    await expect.poll(() => lastReport(page)).toMatchObject({ canUndo: true, canRedo: false });
+
+    await menu(page, 'undo');
+    await expect(mode).toHaveValue('economy');
+    await settled();
+    expect(await outlines()).toEqual(economy);
+    await expect.poll(() => lastReport(page)).toMatchObject({ canRedo: true });
+    await page.keyboard.press('Control+y');
+    await expect(mode).toHaveValue('smooth');
+    await settled();
+    expect(await outlines()).toEqual(smooth);
+  });
+
   test('Zoom, combs, scan backdrop and the proof change what the editor’s own controls show', async ({ page }) => {
     await openLetterO(page);
     const canvas = page.getByTestId('letter-canvas');

@@ -31,7 +31,7 @@ const H_TOP = 1400;
 const box = (x0: number, y0: number, x1: number, y1: number): GlyphOutline => ({ contours: [{ points: [onCurve(x0, y0), onCurve(x1, y0), onCurve(x1, y1), onCurve(x0, y1)] }] });
 
 function fittedLetter(index: number, character: string, outline: GlyphOutline): FittedLetter {
-  return { index, character, box: { x: 10, y: 10, width: 20, height: 70 }, frame: { originX: 10, baselineY: 80, unitsPerPixel: 10 }, outline, contours: [], warnings: [], maxDeviation: 0.5, problem: null };
+  return { index, character, box: { x: 10, y: 10, width: 20, height: 70 }, frame: { originX: 10, baselineY: 80, unitsPerPixel: 10 }, outline, contours: [], ink: '', warnings: [], maxDeviation: 0.5, problem: null };
 }
 
 /** The window's font after the designer typed every metric of TYPED, as the proof and export get it. */

@@ -17,7 +17,7 @@ const copy = embedScan(new Uint8Array([1, 2, 3, 4]));
 const square = { contours: [{ points: [onCurve(50, 0), onCurve(250, 0), onCurve(250, 700), onCurve(50, 700)] }] };
 
 function fittedLetter(index: number, character: string): FittedLetter {
-  return { index, character, contours: [index], box: { x: 10, y: 10, width: 20, height: 70 }, frame: { originX: 10, baselineY: 80, unitsPerPixel: 10 }, outline: square, warnings: [], maxDeviation: 0.5, problem: null };
+  return { index, character, contours: [index], ink: `ink-${index}`, box: { x: 10, y: 10, width: 20, height: 70 }, frame: { originX: 10, baselineY: 80, unitsPerPixel: 10 }, outline: square, warnings: [], maxDeviation: 0.5, problem: null };
 }
 
 function editing(advanceWidth: number) {

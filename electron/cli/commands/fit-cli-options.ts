@@ -2,13 +2,11 @@
 // outline follows the ink, what counts as a corner, the fitting mode and curvature
 // fairing. One spec and one parser, so both commands spell and check them alike.
 import { DEFAULT_CORNER_ANGLE_DEGREES, DEFAULT_TOLERANCE, type FitOptions } from '../../../core/fit/index.ts';
+import { CORNER_ANGLE_RANGE, FIT_MODES, TOLERANCE_RANGE } from '../../../core/pipeline/index.ts';
 import { CliUsageError } from '../cli-usage-error.ts';
 import { numberOption } from '../parse-options.ts';
 
-/** Accepted tolerance range in font units: below 0.1 is finer than the unit grid; above 50 loses the drawing. */
-const TOLERANCE_RANGE = { min: 0.1, max: 50 } as const;
-/** Accepted corner angles, degrees: a turn must be more than nothing and less than a reversal. */
-const CORNER_ANGLE_RANGE = { min: 1, max: 179 } as const;
+// The accepted ranges are the pipeline settings' (core/pipeline/pipeline-settings.ts), shared with the app's settings panel.
 
 export const fitOptionSpec = {
   tolerance: { type: 'string' },
@@ -40,8 +38,9 @@ export function fitOptionsFrom(command: string, values: FitValues): FitOptions {
   if (cornerAngle !== undefined) fit.cornerAngleDegrees = cornerAngle;
   const mode = values['fit-mode'];
   if (mode !== undefined) {
-    if (mode !== 'economy' && mode !== 'smooth') throw new CliUsageError(`stemline ${command}: --fit-mode takes economy or smooth, not "${mode}".`);
-    fit.mode = mode;
+    const known = FIT_MODES.find((m) => m === mode);
+    if (known === undefined) throw new CliUsageError(`stemline ${command}: --fit-mode takes ${FIT_MODES.join(' or ')}, not "${mode}".`);
+    fit.mode = known;
   }
   if (values['fair-joins'] === true) fit.fairing = true;
   return fit;

@@ -1,11 +1,10 @@
 // The scan options every tracing command shares: threshold, invert, cleanup sizes,
 // resolution override and the characters drawn on the sheet.
 import type { TraceScanOptions } from '../../../core/raster/index.ts';
+import { CLEANUP_AREA_RANGE, GREY_LEVEL_RANGE } from '../../../core/pipeline/index.ts';
 import { CliUsageError } from '../cli-usage-error.ts';
 import { numberOption } from '../parse-options.ts';
 
-/** Largest cleanup size accepted on the command line: 100 mm² is a 1 cm square, never a speck. */
-const MAX_CLEANUP_AREA_MM2 = 100;
 /** Resolutions accepted as an override: below 50 dpi nothing traceable remains; above 12,000 no scanner goes. */
 const DPI_RANGE = { min: 50, max: 12_000 } as const;
 
@@ -42,15 +41,15 @@ export function scanSettingsFrom(command: string, values: ScanValues): { trace: 
   const threshold = values.threshold ?? 'otsu';
   if (threshold === 'otsu') trace.method = 'otsu';
   else if (threshold === 'local') trace.method = 'sauvola';
-  else if (/^\d{1,3}$/.test(threshold) && Number(threshold) <= 255) {
+  else if (/^\d{1,3}$/.test(threshold) && Number(threshold) <= GREY_LEVEL_RANGE.max) {
     trace.method = 'manual';
     trace.level = Number(threshold);
   } else {
     throw new CliUsageError(`stemline ${command}: --threshold takes otsu, local or a grey level from 0 to 255, not "${threshold}".`);
   }
-  const speck = numberOption(command, 'speck-area', values['speck-area'], 0, MAX_CLEANUP_AREA_MM2);
+  const speck = numberOption(command, 'speck-area', values['speck-area'], CLEANUP_AREA_RANGE.min, CLEANUP_AREA_RANGE.max);
   if (speck !== undefined) trace.speckAreaMm2 = speck;
-  const pinhole = numberOption(command, 'pinhole-area', values['pinhole-area'], 0, MAX_CLEANUP_AREA_MM2);
+  const pinhole = numberOption(command, 'pinhole-area', values['pinhole-area'], CLEANUP_AREA_RANGE.min, CLEANUP_AREA_RANGE.max);
   if (pinhole !== undefined) trace.pinholeAreaMm2 = pinhole;
   if (values.characters !== undefined) trace.characters = values.characters;
   return { trace, dpi: numberOption(command, 'dpi', values.dpi, DPI_RANGE.min, DPI_RANGE.max) };

@@ -8,9 +8,14 @@
 // format 2, the font gained the optional `metricsSetByUser`: which vertical metrics
 // the designer typed (the others are measured from the drawing). A file without it
 // opens as before (renderer/src/project/saved-metrics.ts says how it is read). And a
-// scan gained the optional `sheetEdits` (sheet-edits-schema.ts).
+// scan gained the optional `sheetEdits` (sheet-edits-schema.ts). Then the settings the
+// app sets (core/pipeline/pipeline-settings.ts): the fit gained the optional `fitMode`
+// and `fairJoins`, a scan the optional `speckAreaMm2` and `pinholeAreaMm2` beside its
+// `threshold` and `invert`; a file without them opens with the defaults
+// (renderer/src/project/saved-settings.ts).
 import * as v from 'valibot';
 import type { MetricName } from '../../../core/document/index.ts';
+import { CLEANUP_AREA_RANGE, FIT_MODES, GREY_LEVEL_RANGE } from '../../../core/pipeline/pipeline-settings.ts';
 import { sheetEditsSchema } from './sheet-edits-schema.ts';
 
 /** The `format` field's value: tells a Stemline project from any other JSON. */
@@ -99,8 +104,12 @@ const scanSchema = v.strictObject({
   characters: v.optional(v.string()),
   /** The user's corrections of the scan's letters and guides, in order; when present they include the assignments of characters. */
   sheetEdits: v.optional(sheetEditsSchema),
-  threshold: v.optional(v.union([v.literal('otsu'), v.literal('local'), v.pipe(v.number(), v.integer(), v.minValue(0), v.maxValue(255))])),
+  threshold: v.optional(v.union([v.literal('otsu'), v.literal('local'), v.pipe(v.number(), v.integer(), v.minValue(GREY_LEVEL_RANGE.min), v.maxValue(GREY_LEVEL_RANGE.max))])),
   invert: v.optional(v.boolean()),
+  /** Ink specks smaller than this (mm²) were erased when tracing; absent: the default. */
+  speckAreaMm2: v.optional(v.pipe(v.number(), v.minValue(CLEANUP_AREA_RANGE.min), v.maxValue(CLEANUP_AREA_RANGE.max))),
+  /** Pinholes smaller than this (mm²) were filled; absent: the default. */
+  pinholeAreaMm2: v.optional(v.pipe(v.number(), v.minValue(CLEANUP_AREA_RANGE.min), v.maxValue(CLEANUP_AREA_RANGE.max))),
 });
 
 export const projectSchema = v.strictObject({
@@ -123,6 +132,10 @@ export const projectSchema = v.strictObject({
     tolerance: v.pipe(v.number(), v.minValue(0.05), v.maxValue(100)),
     cornerAngleDegrees: v.pipe(v.number(), v.minValue(1), v.maxValue(179)),
     axisSnapDegrees: v.pipe(v.number(), v.minValue(0), v.maxValue(45)),
+    /** Absent: economy, the default. */
+    fitMode: v.optional(v.picklist(FIT_MODES)),
+    /** Absent: off, the default (smooth mode fairs whatever this says). */
+    fairJoins: v.optional(v.boolean()),
   }),
   scans: v.array(scanSchema),
   glyphs: v.array(glyphSchema),

@@ -1,7 +1,7 @@
 // The project file's contents built from what the user has in the window: the scan
 // (embedded, with the characters assigned on it), every fitted letter's glyph as
 // edited (characters, outline, advance width, which letter of the scan it is), the
-// corrections made to the scan's letters and guides, the font's vertical metrics and which of them the designer typed (saved-metrics.ts), and — from the project that was opened — every setting
+// corrections made to the scan's letters and guides, the scan and fit settings (saved-settings.ts), the font's vertical metrics and which of them the designer typed (saved-metrics.ts), and — from the project that was opened — every setting
 // and glyph the window does not edit, kept as it was.
 import type { DocumentGlyph, GlyphDocument } from '../../../core/document/index.ts';
 import { outlineToJson } from '../../../core/outline/index.ts';
@@ -12,6 +12,8 @@ import { savedSheetEdit } from '../../../electron/io/project/sheet-edits-schema.
 import type { SheetEdit } from '../../../core/raster/index.ts';
 import type { EditableLetter } from '../editor/letter-document.ts';
 import { savedMetricFields } from './saved-metrics.ts';
+import { savedFitFields, savedScanFields } from './saved-settings.ts';
+import type { FitSettings, ScanSettings } from '../../../core/pipeline/index.ts';
 
 /** Id of the scan in a project started in the window. */
 export const FIRST_SCAN_ID = 'scan-1';
@@ -21,7 +23,9 @@ export interface WindowContent {
    * The opened scan: its file name, embedded copy, the characters last assigned on it
    * and the corrections made to it (assignments included); null before a scan is opened.
    */
-  readonly scan: { readonly fileName: string; readonly copy: EmbeddedScan; readonly characters: string | null; readonly edits?: readonly SheetEdit[] } | null;
+  readonly scan: { readonly fileName: string; readonly copy: EmbeddedScan; readonly characters: string | null; readonly edits?: readonly SheetEdit[]; readonly settings?: ScanSettings } | null;
+  /** The fit settings in the window; absent: the opened project's, as they were. */
+  readonly fit?: FitSettings;
   /** Whether `scan` is the scan of `base` (restored from it), so its entry and glyph settings carry over. */
   readonly scanFromBase: boolean;
   /** The fitted letters being edited; null before fitting. */
@@ -50,7 +54,10 @@ export function projectContent(content: WindowContent): ProjectData {
   const scanId = baseScan?.id ?? FIRST_SCAN_ID;
   const scans: ProjectScan[] = [];
   if (content.scan) {
-    const { characters: _characters, sheetEdits: _sheetEdits, ...kept } = baseScan ?? { id: scanId, path: content.scan.fileName };
+    const { characters: _characters, sheetEdits: _sheetEdits, ...base } = baseScan ?? { id: scanId, path: content.scan.fileName };
+    // The window's scan settings replace the saved ones; without them, the saved ones stay.
+    const { threshold: _threshold, invert: _invert, speckAreaMm2: _speck, pinholeAreaMm2: _pinhole, ...unset } = base;
+    const kept = content.scan.settings === undefined ? base : { ...unset, ...savedScanFields(content.scan.settings) };
     // Assignments alone are saved as `characters`, as before corrections existed; any other correction saves the whole list.
     const edits = content.scan.edits ?? [];
     const corrected = edits.some((edit) => edit.kind !== 'assign');
@@ -78,7 +85,7 @@ export function projectContent(content: WindowContent): ProjectData {
     format: start.format,
     formatVersion: start.formatVersion,
     font: document ? { ...start.font, ...savedMetricFields(document) } : start.font,
-    fit: start.fit,
+    fit: content.fit === undefined ? start.fit : savedFitFields(start.fit, content.fit),
     scans,
     glyphs: [...letterGlyphs, ...content.carried],
   };

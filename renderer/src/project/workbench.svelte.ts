@@ -12,6 +12,8 @@ import { restoredLetters } from './restored-letters.ts';
 import { keptOutlines } from './kept-outlines.ts';
 import { fontMetricsOf, letterDocument } from '../editor/letter-document.ts';
 import { newProject } from '../../../electron/io/project/new-project.ts';
+import { DEFAULT_PIPELINE_SETTINGS } from '../../../core/pipeline/index.ts';
+import { projectSettings } from './saved-settings.ts';
 
 /** The last part of a project's relative scan path ("scans/capitals.png" → "capitals.png"). */
 function baseName(path: string): string {
@@ -32,18 +34,31 @@ export class Workbench {
   /** Counts the times the window's project was replaced, so a demo still loading knows it was overtaken. */
   private generation = 0;
 
+  /** How many letters the user edited kept their outlines at the last fit (they were not refitted), or null before a fit again. */
+  keptEdited = $state<number | null>(null);
+
   /**
-   * Fits the assigned letters in the worker and starts editing them. Letters already
-   * being edited whose ink and place on the scan the sheet's corrections left alone
-   * keep their edited outlines (kept-outlines.ts). False when fitting failed (the
-   * session says why).
+   * Fits the assigned letters in the worker, with the session's fit settings, and
+   * starts editing them. Letters the user edited whose ink and place on the scan
+   * did not change keep their edited outlines; every other letter takes its fresh
+   * fit (kept-outlines.ts). False when fitting failed or was cancelled (the session
+   * says why); the letters being edited then stay as they were.
    */
   async fitLetters(): Promise<boolean> {
+    const session = this.scan;
     const previous = this.editing;
-    if (!(await this.scan.fit()) || !this.scan.fitted) return false;
-    const fitted = this.scan.fitted;
+    if (!(await session.fit()) || !session.fitted || session !== this.scan) return false;
+    const fitted = session.fitted;
     const fresh = letterDocument(fitted);
-    this.editing = new LetterEditing(fitted, previous ? keptOutlines({ document: previous.state.document, letters: previous.letters }, fontMetricsOf(previous.sheet), fresh) : fresh);
+    if (!previous) {
+      this.editing = new LetterEditing(fitted, fresh);
+      this.keptEdited = null;
+      return true;
+    }
+    const asFitted = letterDocument(previous.sheet).document;
+    const result = keptOutlines({ document: previous.state.document, letters: previous.letters }, { ...asFitted, metrics: fontMetricsOf(previous.sheet) }, fresh);
+    this.editing = new LetterEditing(fitted, result);
+    this.keptEdited = result.kept;
     return true;
   }
 
@@ -54,7 +69,7 @@ export class Workbench {
    */
   get stamp(): readonly unknown[] {
     const document = this.editing?.state.document;
-    return [this.scan, this.scan.file, this.scan.characters, this.scan.edits, this.editing, document?.glyphs, document?.metrics, this.carried, this.base];
+    return [this.scan, this.scan.file, this.scan.characters, this.scan.edits, this.scan.settings, this.editing, document?.glyphs, document?.metrics, this.carried, this.base];
   }
 
   /** The project file's contents for the current state. */
@@ -62,7 +77,8 @@ export class Workbench {
     const file = this.scan.file;
     const editing = this.editing;
     return projectContent({
-      scan: file ? { fileName: file.name, copy: await embeddedCopyOf(file), characters: this.scan.characters, edits: this.scan.edits } : null,
+      scan: file ? { fileName: file.name, copy: await embeddedCopyOf(file), characters: this.scan.characters, edits: this.scan.edits, settings: this.scan.settings.scan } : null,
+      fit: this.scan.settings.fit,
       scanFromBase: file !== null && file === this.baseScanFile,
       editing: editing ? { document: editing.state.document, letters: editing.letters } : null,
       carried: this.carried,
@@ -82,6 +98,7 @@ export class Workbench {
     if (editing === null && this.carried.length === 0) return null;
     const project = projectContent({
       scan: null,
+      fit: this.scan.settings.fit,
       scanFromBase: file !== null && file === this.baseScanFile,
       editing: editing ? { document: editing.state.document, letters: editing.letters } : null,
       carried: this.carried,
@@ -112,10 +129,16 @@ export class Workbench {
     let file: File | null = null;
     this.restoring = next;
     try {
+      // The project's settings, also when it has no scan (one made from a font), so a save keeps them.
+      try {
+        next.settings = projectSettings(project, scan);
+      } catch (error) {
+        throw new Error(`${projectName}: ${error instanceof Error ? error.message : String(error)} Fix the setting in the file by hand; the file has not been changed.`);
+      }
       if (scan) {
         if (!scan.embedded) throw new Error(`${projectName}: the host sent the project without its scan. Please report this.`);
         file = fileFromCopy(scan.embedded, baseName(scan.path));
-        if (!(await next.open(file))) throw new Error(`${projectName}: its scan could not be opened: ${next.problem ?? 'unknown problem'}`);
+        if (!(await next.open(file, next.settings))) throw new Error(`${projectName}: its scan could not be opened: ${next.problem ?? 'unknown problem'}`);
         if (scan.sheetEdits !== undefined) {
           if (!(await next.restoreEdits(scan.sheetEdits))) throw new Error(`${projectName}: the corrections of its scan's letters could not be made again: ${next.problem ?? 'unknown problem'} The file has not been changed.`);
           if (scan.characters !== undefined) next.characters = scan.characters;
@@ -140,6 +163,7 @@ export class Workbench {
     this.carried = carried;
     this.base = project;
     this.baseScanFile = file;
+    this.keptEdited = null;
     previous.dispose();
   }
 
@@ -161,7 +185,7 @@ export class Workbench {
     const overtaken = () => mine !== this.generation || this.scan !== untouched || untouched.file !== null;
     try {
       const file = new File([Uint8Array.from(atob(sheet.base64), (c) => c.charCodeAt(0))], sheet.name, { type: 'image/png' });
-      if (!(await next.open(file))) throw new Error(`The demo's scan could not be opened: ${next.problem ?? 'unknown problem'}`);
+      if (!(await next.open(file, DEFAULT_PIPELINE_SETTINGS))) throw new Error(`The demo's scan could not be opened: ${next.problem ?? 'unknown problem'}`);
       if (overtaken()) return this.dropDemo(next);
       if (!(await next.assign(sheet.characters))) throw new Error(`The demo's characters could not be assigned: ${next.problem ?? 'unknown problem'}`);
       if (overtaken()) return this.dropDemo(next);
@@ -179,6 +203,7 @@ export class Workbench {
     this.carried = [];
     this.base = newProject(demo.familyName);
     this.baseScanFile = null;
+    this.keptEdited = null;
     previous.dispose();
     return true;
   }
@@ -198,6 +223,7 @@ export class Workbench {
     this.carried = [];
     this.base = null;
     this.baseScanFile = null;
+    this.keptEdited = null;
     previous.dispose();
   }
 }
