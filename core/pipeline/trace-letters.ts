@@ -185,7 +185,7 @@ export function fitLetterJob(job: LetterFitJob): LetterFitOutcome {
     if (contours.length === 0) {
       const tolerance = job.options.tolerance ?? DEFAULT_TOLERANCE;
       const pixels = job.options.pixelSize ? `, ${(tolerance / job.options.pixelSize).toFixed(2)} px` : '';
-      throw new RangeError(`its ink is too thin to fit: every stroke is narrower than the fitting tolerance (${tolerance.toFixed(1)} units${pixels}) and came out with no area. Scan at a higher resolution, or lower the tolerance.`);
+      return { ok: false, message: `its ink is too thin to fit: every stroke is narrower than the fitting tolerance (${tolerance.toFixed(1)} units${pixels}) and came out with no area. Scan at a higher resolution, or lower the tolerance.` };
     }
     const outline = contours.length === fitted.outline.contours.length ? fitted.outline : { ...fitted.outline, contours };
     return { ok: true, outline, report: fitted.report };

@@ -7,13 +7,13 @@
 // screenshot in the test's output folder. With STEMLINE_README_SHOTS=1 three of them
 // are also written to docs/images/ for the README's tour, at a fixed window size.
 import { test, expect, type Page, type TestInfo } from '@playwright/test';
-import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync } from 'node:fs';
+import { copyFileSync, mkdirSync, mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import opentype from 'opentype.js/dist/opentype.js';
-import { checkRequirement, CHROMIUM, OTS_SANITIZE } from '../support/require-tool.ts';
-import { otsSanitize } from '../font/ots.ts';
+import { checkRequirement, CHROMIUM } from '../support/require-tool.ts';
+import { expectAcceptedCffFont } from './exported-font.ts';
 import { startBrowserHost, type BrowserHost } from '../../electron/browser-host.ts';
 import { RENDERER_BUILD_DIR } from '../../electron/project-paths.ts';
 import { DEMO_SHEETS_FOLDER, readDemoManifest } from '../../electron/demo/demo-files.ts';
@@ -21,7 +21,6 @@ import { DEMO_SHEETS } from '../../electron/demo/demo-scenario.ts';
 import { splitCharacters } from '../../core/raster/index.ts';
 
 const chromium = checkRequirement(CHROMIUM);
-const ots = checkRequirement(OTS_SANITIZE);
 
 /** The window size of every step, so the README's images are the same size each time they are made. */
 const VIEWPORT = { width: 1280, height: 800 } as const;
@@ -50,8 +49,6 @@ const DRAG_PX = { x: 36, y: -28 } as const;
 const DRAG_STEPS = 8;
 /** The proof line: the shop of the demo's story, every character of which is drawn on its sheet, short enough to fit the window at 96 px. */
 const PROOF_TEXT = 'Pellworth & Daughters';
-/** The OpenType tag that opens a font with CFF outlines (OpenType spec, "Organization of an OpenType Font"). */
-const CFF_SFNT_TAG = 'OTTO';
 
 interface Box {
   readonly character: string;
@@ -274,14 +271,7 @@ test.describe('a newcomer’s first session, from a new project to an exported f
       const path = join(workspace, 'first-font.otf');
       await expect(page.getByTestId('export-status')).toHaveText(`Exported first-font.otf to ${path}`);
       await shot('10-exported');
-      expect(existsSync(path)).toBe(true);
-      const bytes = readFileSync(path);
-      expect(bytes.subarray(0, 4).toString('latin1')).toBe(CFF_SFNT_TAG);
-      if (ots.available) {
-        // Reference: ots-sanitize (Debian opentype-sanitizer), the checks Chromium applies to web fonts.
-        const result = otsSanitize(new Uint8Array(bytes));
-        expect(result.passed, result.output).toBe(true);
-      } else testInfo.annotations.push({ type: 'skipped check', description: ots.message });
+      const bytes = expectAcceptedCffFont(path, testInfo);
       // Read back by opentype.js, a reader independent of the page: every character drawn has its own glyph with ink and an advance.
       const font = opentype.parse(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
       for (const c of characters) {

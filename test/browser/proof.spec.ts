@@ -5,15 +5,13 @@
 // in the one-letter editor changes the proof within two seconds. Exporting writes an
 // OpenType font into the host's workspace and says where.
 import { test, expect, type Page } from '@playwright/test';
-import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { checkRequirement, CHROMIUM, OTS_SANITIZE } from '../support/require-tool.ts';
+import { checkRequirement, CHROMIUM } from '../support/require-tool.ts';
 import { DEMO_CHARACTERS, openFittedDemoSheet } from '../support/demo-sheet.ts';
 import { BROWSER_WORKSPACE } from '../support/browser-host-folders.ts';
-import { otsSanitize } from '../font/ots.ts';
+import { expectAcceptedCffFont } from './exported-font.ts';
 
 const chromium = checkRequirement(CHROMIUM);
-const ots = checkRequirement(OTS_SANITIZE);
 
 /** The proof's promise is to follow an edit within a second; two leave room for this shared two-core machine. */
 const PROOF_FOLLOW_LIMIT_MS = 2000;
@@ -28,8 +26,6 @@ const PROOF_SIZES = ['12', '24', '48', '96'];
  * much more; equal widths within 5% would mean the fallback was used.
  */
 const MIN_WIDTH_DIFFERENCE = 0.05;
-/** The OpenType tag that opens a font with CFF outlines (OpenType spec, "Organization of an OpenType Font"). */
-const CFF_SFNT_TAG = 'OTTO';
 
 const proofLine = (page: Page, size: string) => page.locator(`[data-testid="proof-line"][data-size="${size}"]`);
 
@@ -149,14 +145,7 @@ test.describe('proofing and exporting the font', () => {
     await chooser.getByRole('button', { name: 'Export', exact: true }).click();
     const path = join(BROWSER_WORKSPACE, 'demo-proof.otf');
     await expect(page.getByTestId('export-status')).toHaveText(`Exported demo-proof.otf to ${path}`);
-    expect(existsSync(path)).toBe(true);
-    const bytes = readFileSync(path);
-    expect(bytes.subarray(0, 4).toString('latin1')).toBe(CFF_SFNT_TAG);
-    if (ots.available) {
-      // Reference: ots-sanitize (Debian opentype-sanitizer), the checks Chromium applies to web fonts.
-      const result = otsSanitize(new Uint8Array(bytes));
-      expect(result.passed, result.output).toBe(true);
-    } else test.info().annotations.push({ type: 'skipped check', description: ots.message });
+    expectAcceptedCffFont(path, test.info());
 
     // Exporting again under the same name says the file was replaced.
     await page.getByTestId('export-font').click();
