@@ -91,13 +91,42 @@ const MAX_ROUNDING_ZONE_PX = 8;
  * blur round by up to about 1.5 px, and 1 px more covers noise in the apex. A drawn
  * corner rounded more than that is the designer's rounding and is kept (measured: with
  * a reach of 2.5 px/sin(opening/2), the rounded crotch of Linux Libertine's n was cut
- * 6 units too deep at 0.5 px per unit). The margin stays in pixels: capped at 1.5 font
- * units it kept the 5-unit bowl brackets of Linux Libertine round at 0.5 px per unit
- * (Hausdorff p95 3.77 → 2.80), but on the demo sheet, where a pixel is more than 1.5
- * units, it took true pen corners for roundings (warnings 3 → 8).
+ * 6 units too deep at 0.5 px per unit). The whole reach stays in pixels: capped at 1.5
+ * font units it took true pen corners of the demo sheet, where a pixel is more than 1.5
+ * units, for roundings (warnings 3 → 8); only the margin follows the units
+ * ({@link DRAWN_ROUNDING_UNITS}).
  */
 export const CORNER_ROUNDING_RADIUS_PX = 1.5;
 const CORNER_REACH_MARGIN_PX = 1;
+/**
+ * With the scan's blur known (and so the tip it predicts, blurred-wedge.ts), the margin
+ * for a scan that resolves less than {@link DRAWN_ROUNDING_UNITS} per pixel shrinks to
+ * that many font units, never below {@link MIN_MEASURED_REACH_MARGIN_PX}, and never
+ * below {@link REACH_NOISE_SIGMAS} σ of the scan's noise.
+ * Measured on the round trip of Linux Libertine (A–Z a–z 0–9, rendered with
+ * anti-aliasing at 0.5 px per unit), as the slack between where a candidate's sides meet
+ * and the tip the blur predicts: true corners reach 0.75 px; the brackets about 5 units
+ * round where bowls meet stems (b, m, n, p, w), which the full 1 px margin took for
+ * corners, start at 0.82 px. With the margin at 1.5 units (0.75 px there) the
+ * Hausdorff p95 went from 3.77 to 2.80 units, corner precision from .886 to .910 and
+ * recall from .949 to .954; at 1 px per unit nothing changed.
+ */
+const DRAWN_ROUNDING_UNITS = 1.5;
+/**
+ * The least margin with a measured blur: 0.6 px. Below it the sides' extrapolation
+ * across the tip (about half a pixel on curved sides, measured as above) and the
+ * tracer's own error would turn true corners into roundings. The demo sheet, whose
+ * pixel is more than 1.5 units, keeps all its pen corners at 0.6 px, and lost them at a
+ * total reach of 1.5 units.
+ */
+const MIN_MEASURED_REACH_MARGIN_PX = 0.6;
+/**
+ * A noisy scan's tip and sides scatter by its noise σ each: four σ keep nearly every
+ * true corner. On a smoothed 1-bit scan (σ = 1/√12 px, the 1-bit staircase) this keeps
+ * the full 1 px margin: measured, corner recall on the 1-bit copy of Linux Libertine fell
+ * from .86 to .69 when its margin followed the smoothed boundaries' own scatter.
+ */
+const REACH_NOISE_SIGMAS = 4;
 const MAX_CORNER_REACH_PX = 8;
 /** Sides shorter than this many points are fitted with a line rather than a parabola. */
 const MIN_POINTS_FOR_PARABOLA = 6;
@@ -131,6 +160,8 @@ export interface CornerSettings {
   readonly forcedSmooth: readonly number[];
   /** The scan's edge blur σ in px, when known (fit-options.ts `scanBlurPx`). */
   readonly blurPx?: number;
+  /** The scan's noise σ across the boundary in px: declared (fit-options.ts `scanNoisePx`) or measured on the chain (local-line.ts estimateNoise). */
+  readonly noisePx?: number;
 }
 
 /**
@@ -151,15 +182,27 @@ export function roundingZoneFor(turn: number, pixel: number, blurPx?: number): n
  * corner the traced tip may lie. With the scan's blur σ known, the tip of a corner
  * blurred by a Gaussian of σ lies σ·g(opening) inside it (blurredWedgeInset); without
  * it, a tip rounded with radius {@link CORNER_ROUNDING_RADIUS_PX} is assumed. Both
- * get {@link CORNER_REACH_MARGIN_PX} for noise.
+ * get a margin for noise (cornerReachMarginPx).
  */
-export function cornerReachFor(turn: number, pixel: number, blurPx?: number): number {
+export function cornerReachFor(turn: number, pixel: number, blurPx?: number, noisePx?: number): number {
   const opening = Math.PI - Math.abs(turn);
   const inset =
     blurPx === undefined
       ? CORNER_ROUNDING_RADIUS_PX * (1 / Math.max(Math.sin(opening / 2), 1e-3) - 1)
       : Math.max(blurPx * blurredWedgeInset(opening), UNRESOLVED_WEDGE_HALF_WIDTH_PX / Math.tan(Math.max(opening, 1e-3) / 2));
-  return Math.min(MAX_CORNER_REACH_PX, inset + CORNER_REACH_MARGIN_PX) * pixel;
+  return Math.min(MAX_CORNER_REACH_PX, inset + cornerReachMarginPx(pixel, blurPx, noisePx)) * pixel;
+}
+
+/**
+ * The margin (px) added to the predicted tip's inset, for a scan pixel of `pixel` font
+ * units: {@link CORNER_REACH_MARGIN_PX} without a measured blur (the tip's rounding is
+ * then assumed, and the margin must cover any scan); with one, as much as
+ * {@link DRAWN_ROUNDING_UNITS} allows, within {@link MIN_MEASURED_REACH_MARGIN_PX} and
+ * the blind margin, and at least {@link REACH_NOISE_SIGMAS} σ of the noise.
+ */
+export function cornerReachMarginPx(pixel: number, blurPx?: number, noisePx = 0): number {
+  if (blurPx === undefined) return CORNER_REACH_MARGIN_PX;
+  return Math.min(CORNER_REACH_MARGIN_PX, Math.max(MIN_MEASURED_REACH_MARGIN_PX, DRAWN_ROUNDING_UNITS / pixel, REACH_NOISE_SIGMAS * noisePx));
 }
 
 /**
@@ -345,7 +388,7 @@ function verifyCandidate(chain: BoundaryChain, settings: CornerSettings, index: 
   }
   const turn = turnBetween(Math.atan2(incoming.y, incoming.x), Math.atan2(outgoing.y, outgoing.x));
   if (!isForced && Math.abs(turn) < cornerAngle) return undefined;
-  const reach = cornerReachFor(turn, pixel, settings.blurPx);
+  const reach = cornerReachFor(turn, pixel, settings.blurPx, settings.noisePx);
   const meet = left && right ? intersectLines(left.point, left.tangent, right.point, right.tangent) : undefined;
   const meetDistance = meet ? Math.hypot(meet.x - apex.x, meet.y - apex.y) : 0;
   if (!isForced && meet && settings.blurPx !== undefined && meetDistance > reach) return 'resolved-rounding';

@@ -97,6 +97,7 @@ export function fitContour(points: readonly Point[], options: FitOptions = {}): 
     forcedCorners: resolved.forcedCorners.map(toChain),
     forcedSmooth: resolved.forcedSmooth.map(toChain),
     ...(resolved.scanBlurPx === undefined ? {} : { blurPx: resolved.scanBlurPx }),
+    noisePx: resolved.scanNoisePx ?? noise / pixel,
   });
   // With no corner, the one run round the chain starts where it turns most, never inside a line.
   const seam = corners.length > 0 ? (corners[0] as DetectedCorner).index : mostTurningPoint(chain, pixel);

@@ -47,6 +47,14 @@ export interface FitOptions {
    */
   readonly scanBlurPx?: number;
   /**
+   * The scan's noise σ across the boundary, in scan pixels. With `scanBlurPx` it sets
+   * the margin by which a corner may lie beyond the tip the blur predicts
+   * (corners.ts, cornerReachMarginPx). Give it when the scan's noise is known better
+   * than a boundary's own scatter shows it (the tracer's `edgeNoisePx` for a smoothed
+   * 1-bit scan). Default: measured on each chain (local-line.ts estimateNoise).
+   */
+  readonly scanNoisePx?: number;
+  /**
    * 'economy' fits the fewest on-curve points (corners, lines, extrema, least-squares
    * cubics); 'smooth' fits one C² B-spline and reduces it (smooth-fit.ts), for brush
    * and pen lettering where curvature continuity matters more than point economy.
@@ -78,6 +86,7 @@ export interface ResolvedFitOptions {
   readonly pixelSize: number | undefined;
   /** Undefined here means: unknown. */
   readonly scanBlurPx: number | undefined;
+  readonly scanNoisePx: number | undefined;
   readonly mode: FitMode;
   readonly fairing: boolean;
 }
@@ -151,6 +160,7 @@ export function resolveFitOptions(options: FitOptions = {}): ResolvedFitOptions 
   if (!(grid > 0) || !Number.isFinite(grid)) throw new RangeError(`grid must be a positive number of font units, got ${String(grid)}`);
   if (options.pixelSize !== undefined && !(options.pixelSize > 0)) throw new RangeError(`pixelSize must be positive, got ${String(options.pixelSize)}`);
   if (options.scanBlurPx !== undefined && !(options.scanBlurPx > 0 && Number.isFinite(options.scanBlurPx))) throw new RangeError(`scanBlurPx must be a positive number of scan pixels, got ${String(options.scanBlurPx)}`);
+  if (options.scanNoisePx !== undefined && !(options.scanNoisePx >= 0 && Number.isFinite(options.scanNoisePx))) throw new RangeError(`scanNoisePx must be zero or a positive number of scan pixels, got ${String(options.scanNoisePx)}`);
   const mode = options.mode ?? DEFAULT_FIT_MODE;
   if (mode !== 'economy' && mode !== 'smooth') throw new RangeError(`mode must be 'economy' or 'smooth', got ${String(mode)}`);
   return {
@@ -162,6 +172,7 @@ export function resolveFitOptions(options: FitOptions = {}): ResolvedFitOptions 
     grid,
     pixelSize: options.pixelSize,
     scanBlurPx: options.scanBlurPx,
+    scanNoisePx: options.scanNoisePx,
     mode,
     fairing: options.fairing ?? (mode === 'smooth' ? SMOOTH_MODE_FAIRING : DEFAULT_FAIRING),
   };

@@ -103,7 +103,7 @@ export function traceLetters(image: ScanImage, options: TraceLettersOptions = {}
 }
 
 /** What fitting a sheet's letters reads from its trace: the contours and letters, the edge blur and the notes. */
-export type FittableScan = Pick<TraceScanResult, 'sheet' | 'contours' | 'edgeBlurPx' | 'notes'>;
+export type FittableScan = Pick<TraceScanResult, 'sheet' | 'contours' | 'edgeBlurPx' | 'notes'> & Partial<Pick<TraceScanResult, 'edgeNoisePx'>>;
 
 /** A sheet's fitted letters without the trace they came from (what the font is built from). */
 export type FittedSheet = Omit<TracedLetters, 'scan'>;
@@ -148,7 +148,8 @@ export function planSheetFit(scan: FittableScan, options: Omit<TraceLettersOptio
   const tolerance = Math.max(options.fit?.tolerance ?? DEFAULT_TOLERANCE, MIN_TOLERANCE_PIXELS * scale);
   // The scan's measured edge blur tells drawn roundings from scan rounding (core/fit/corners.ts).
   const scanBlurPx = options.fit?.scanBlurPx ?? scan.edgeBlurPx ?? undefined;
-  const fitOptions: FitOptions = { ...options.fit, tolerance, pixelSize: scale, ...(scanBlurPx === undefined ? {} : { scanBlurPx }) };
+  const scanNoisePx = options.fit?.scanNoisePx ?? scan.edgeNoisePx ?? undefined;
+  const fitOptions: FitOptions = { ...options.fit, tolerance, pixelSize: scale, ...(scanBlurPx === undefined ? {} : { scanBlurPx }), ...(scanNoisePx === undefined ? {} : { scanNoisePx }) };
   const letters: PlannedLetter[] = [];
   const jobs: LetterFitJob[] = [];
   for (const letter of scan.sheet.letters) {

@@ -45,6 +45,16 @@ export function smoothedBilevelBlurPx(sigma = BILEVEL_SMOOTHING_SIGMA_PX): numbe
 }
 
 /**
+ * The noise σ (px) a fitter should assume across boundaries traced on the smoothed
+ * mask: the 1-bit quantization of the edge position, uniform over a pixel, whose
+ * standard deviation is 1/√12 px (the standard result for uniform quantization). The
+ * staircase's errors are not independent from point to point, so the scatter measured
+ * along a smoothed boundary (core/fit/local-line.ts) understates it: on straight
+ * axis-aligned edges it is nearly zero.
+ */
+export const SMOOTHED_BILEVEL_NOISE_PX = 1 / Math.sqrt(12);
+
+/**
  * The mask as greys (ink 0, paper 255) blurred by a Gaussian of `sigma` px, separably,
  * with paper beyond the image border. Pixels farther than the kernel from any edge keep
  * their exact value, so the field agrees with the mask everywhere but near edges.

@@ -59,4 +59,4 @@ export {
   type SheetGuides,
 } from './sheet-edits.ts';
 export { rebaseSheetEdits, sameLetters, SAME_BOX_TOLERANCE_PX, SAME_PLACE_OVERLAP, type RebasedEdits } from './rebase-sheet-edits.ts';
-export { BILEVEL_SMOOTHING_SIGMA_PX, smoothedBilevelBlurPx, smoothedMaskField } from './bilevel-smoothing.ts';
+export { BILEVEL_SMOOTHING_SIGMA_PX, SMOOTHED_BILEVEL_NOISE_PX, smoothedBilevelBlurPx, smoothedMaskField } from './bilevel-smoothing.ts';

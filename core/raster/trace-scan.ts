@@ -9,7 +9,7 @@ import { cleanupMask } from './cleanup.ts';
 import { estimateEdgeBlur } from './edge-blur.ts';
 import { uniformIsoLevel, type IsoLevelField } from './iso-level-field.ts';
 import { marchingSquaresChains } from './marching-squares.ts';
-import { smoothedBilevelBlurPx, smoothedMaskField } from './bilevel-smoothing.ts';
+import { SMOOTHED_BILEVEL_NOISE_PX, smoothedBilevelBlurPx, smoothedMaskField } from './bilevel-smoothing.ts';
 import { nestContours } from './nesting.ts';
 import { assumedResolutionNote, millimetresToPixels, resolveResolution, type Resolution } from './physical-units.ts';
 import { RasterError } from './raster-error.ts';
@@ -66,6 +66,12 @@ export interface TraceScanResult {
    * with too few clean edges. The fitter takes it as `scanBlurPx`.
    */
   readonly edgeBlurPx: number | null;
+  /**
+   * The noise σ across the boundaries in px when the tracer knows it better than the
+   * boundaries' own scatter shows (the smoothed 1-bit staircase, bilevel-smoothing.ts),
+   * else null and the fitter measures it. The fitter takes it as `scanNoisePx`.
+   */
+  readonly edgeNoisePx: number | null;
   /** The greys the boundaries were placed on (inverted when `invert` was set): re-tracing a cut letter uses them. */
   readonly grey: GreyRaster;
   /** The cleaned ink mask the contours follow. */
@@ -160,6 +166,7 @@ export function traceScan(scan: ScanImage, options: TraceScanOptions = {}): Trac
     resolution,
     boundary: traced.method,
     edgeBlurPx,
+    edgeNoisePx: smoothed ? SMOOTHED_BILEVEL_NOISE_PX : null,
     grey: binarized.grey,
     mask: cleaned.mask,
     contours,

@@ -58,7 +58,7 @@ export async function traceSheetFile(task: TraceSheetTask): Promise<TracedSheetF
     const traced = traceSheetScan({ raster: dpi === undefined ? decoded.raster : { ...decoded.raster, dpi } }, task.scan);
     return {
       decodeNotes: decoded.notes,
-      scan: { sheet: traced.sheet, contours: traced.contours, edgeBlurPx: traced.edgeBlurPx, notes: traced.notes, resolution: traced.resolution },
+      scan: { sheet: traced.sheet, contours: traced.contours, edgeBlurPx: traced.edgeBlurPx, edgeNoisePx: traced.edgeNoisePx, notes: traced.notes, resolution: traced.resolution },
       traceError: null,
     };
   } catch (error) {

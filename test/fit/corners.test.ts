@@ -4,7 +4,7 @@
 
 import { describe, expect, it } from 'vitest';
 import { prepareChain } from '../../core/fit/boundary-chain.ts';
-import { detectCorners, roundingZoneFor } from '../../core/fit/corners.ts';
+import { cornerReachMarginPx, detectCorners, roundingZoneFor } from '../../core/fit/corners.ts';
 import { fitContour } from '../../core/fit/index.ts';
 import type { Point } from '../../core/geometry/index.ts';
 import { circleChain, polygonChain, squareChain } from './synthetic-chains.ts';
@@ -134,5 +134,27 @@ describe('corner sharpening in the fitted contour', () => {
     expect(corners).toHaveLength(1);
     const forcedPoint = circle[200]!;
     expect(Math.hypot(corners[0]!.point.x - forcedPoint.x, corners[0]!.point.y - forcedPoint.y)).toBeLessThan(3);
+  });
+});
+
+describe('the margin beyond the predicted tip within which a corner is sharpened', () => {
+  it('is a full pixel when the scan\'s blur is unknown, whatever the scale', () => {
+    for (const pixel of [0.5, 1, 2, 3]) expect(cornerReachMarginPx(pixel)).toBe(1);
+  });
+
+  it('shrinks to 1.5 font units on a scan coarser than that per pixel, but not below 0.6 px', () => {
+    // Reference: the round trip of Linux Libertine at 0.5 px per unit (a pixel of 2 units),
+    // where 5-unit brackets lay 0.82–1.04 px beyond the predicted tip and true corners
+    // within 0.75 px (test/fit/round-trip.test.ts).
+    expect(cornerReachMarginPx(1, 0.4)).toBe(1);
+    expect(cornerReachMarginPx(2, 0.4)).toBeCloseTo(0.75, 12);
+    expect(cornerReachMarginPx(3, 0.4)).toBeCloseTo(0.6, 12);
+  });
+
+  it('keeps room for the scan\'s noise: four σ of it, up to the full pixel', () => {
+    // A smoothed 1-bit scan's edge is quantized to its pixels: σ = 1/√12 px (uniform quantization).
+    expect(cornerReachMarginPx(3, 0.85, 1 / Math.sqrt(12))).toBe(1);
+    expect(cornerReachMarginPx(3, 0.85, 0.2)).toBeCloseTo(0.8, 12);
+    expect(cornerReachMarginPx(3, 0.85, 0.01)).toBeCloseTo(0.6, 12);
   });
 });

@@ -165,7 +165,8 @@ export function measureGlyph(font: RoundTripFont, commands: readonly PathCommand
   }));
   const started = performance.now();
   const scanBlurPx = fit.scanBlurPx ?? traced.edgeBlurPx ?? undefined;
-  const fitted = fitGlyph(chains, scanBlurPx === undefined ? fit : { ...fit, scanBlurPx });
+  const scanNoisePx = fit.scanNoisePx ?? traced.edgeNoisePx ?? undefined;
+  const fitted = fitGlyph(chains, { ...fit, ...(scanBlurPx === undefined ? {} : { scanBlurPx }), ...(scanNoisePx === undefined ? {} : { scanNoisePx }) });
   const fitMs = performance.now() - started;
 
   const reference = commandsToContours(commands);

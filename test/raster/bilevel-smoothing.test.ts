@@ -71,6 +71,9 @@ describe('smoothed boundaries of 1-bit scans', () => {
     // The blur a fitter should assume: the smoothing combined with the edge's 1-bit quantization.
     expect(smooth.edgeBlurPx).toBeCloseTo(Math.sqrt(BILEVEL_SMOOTHING_SIGMA_PX ** 2 + 1 / 12), 12);
     expect(exact.edgeBlurPx).toBeNull();
+    // The noise it should assume: the 1-bit quantization of the edge, uniform over a pixel (σ = 1/√12 px).
+    expect(smooth.edgeNoisePx).toBeCloseTo(1 / Math.sqrt(12), 12);
+    expect(exact.edgeNoisePx).toBeNull();
   });
 
   it('leave ink and paper far from any edge at their exact greys', () => {
