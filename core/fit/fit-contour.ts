@@ -111,7 +111,7 @@ export function fitContour(points: readonly Point[], options: FitOptions = {}): 
         ? fitSmoothContour(chain, { tolerance: settings.fitTolerance, pixel }, corners)
         : cornerTinyCurves(chain, economyFit(chain, corners, runs, settings), settings.fitTolerance, resolved.grid, pixel, resolved.forcedSmooth.map(toChain));
     if (resolved.fairing) fitted = fairSmoothJoins(chain, fitted, settings.fitTolerance);
-    const rounded = roundToGrid(chain, fitted, resolved.grid, resolved.tolerance);
+    const rounded = roundToGrid(chain, fitted, resolved.grid, resolved.tolerance, (resolved.axisSnapDegrees * Math.PI) / 180);
     const segments: OutlineSegment[] = rounded.spans.map((span) => span.segment);
     const contour = contourFromSegments(segments, rounded.nodes.map((node) => node.smooth));
     result = { contour, report: contourReport(chain, rounded, resolved.tolerance), fitted };

@@ -335,3 +335,27 @@ describe('rounding the handles of a cubic between two corners', () => {
     for (const q of [s.p0, s.p1, s.p2, s.p3]) expect(Number.isInteger(q.x) && Number.isInteger(q.y)).toBe(true);
   });
 });
+
+describe('rounding smooth joins that lean less than the axis-snap angle', () => {
+  // Reference: common practice in outline drawing — a join whose tangent is within a
+  // degree or two of horizontal or vertical is drawn with axis-aligned handles, which are
+  // then exactly collinear and make the join an extremum point.
+  const { chain, contour } = rotatedEllipse(90, 60, (1.5 * Math.PI) / 180);
+  const axisSnap = (2 * Math.PI) / 180;
+
+  it('puts both handles on the axis, exactly, within the tolerance', () => {
+    const rounded = roundToGrid(chain, contour, 1, 1.5, axisSnap);
+    for (const [handleIn, point, handleOut] of triples(rounded)) {
+      const vertical = handleIn.x === point.x && handleOut.x === point.x;
+      const horizontal = handleIn.y === point.y && handleOut.y === point.y;
+      expect(vertical || horizontal, JSON.stringify(point)).toBe(true);
+    }
+    for (const span of rounded.spans) expect(span.maxError).toBeLessThanOrEqual(1.5);
+  });
+
+  it('leaves them sloped when no axis snap is asked for', () => {
+    const rounded = roundToGrid(chain, contour, 1, 1.5);
+    const onAxis = triples(rounded).filter(([handleIn, point, handleOut]) => (handleIn.x === point.x && handleOut.x === point.x) || (handleIn.y === point.y && handleOut.y === point.y));
+    expect(onAxis).toHaveLength(0);
+  });
+});
