@@ -9,7 +9,7 @@ import { FontError } from '../../io/font/font-error.ts';
 import { glyphNameForCodePoint } from '../../io/font/glyph-names.ts';
 import { draftFont, DraftFontError, type DraftFont, type DraftGlyph, type FittedSheet } from '../../../core/pipeline/index.ts';
 import { fitSheetFiles } from '../../batch/fit-sheet-files.ts';
-import { runnerForJobs } from '../../batch/batch-runner.ts';
+import { threadsForJobs } from '../../batch/sheet-threads.ts';
 import { DEFAULT_CAP_HEIGHT_UNITS, DEFAULT_UNITS_PER_EM } from '../../../core/metrics/index.ts';
 import { CliUsageError } from '../cli-usage-error.ts';
 import { numberOption, parseCommandLine } from '../parse-options.ts';
@@ -66,12 +66,13 @@ export const buildCommand: CliCommand = {
     const jobs = jobsOption(values.jobs, positionals.length);
 
     let font: DraftFont;
-    const runner = runnerForJobs(jobs);
+    // The workers start now, so their start-up overlaps this thread's first sheet.
+    const threads = threadsForJobs(jobs);
     const progress = streams.progress;
     try {
       let sheets: FittedSheet[];
       try {
-        sheets = await fitSheetFiles(positionals, values.chars, { scan: settings.trace, dpi: settings.dpi, fit, capHeightUnits: capHeight }, runner, {
+        sheets = await fitSheetFiles(positionals, values.chars, { scan: settings.trace, dpi: settings.dpi, fit, capHeightUnits: capHeight }, threads.threads, {
           onDecodeNotes: (_sheet, notes) => {
             for (const note of notes) {
               progress?.clear();
@@ -82,7 +83,7 @@ export const buildCommand: CliCommand = {
         });
       } finally {
         progress?.clear();
-        await runner.close();
+        await threads.close();
       }
       font = draftFont(sheets, {
         familyName: values.family ?? familyFromFileName(values.output),
