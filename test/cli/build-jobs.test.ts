@@ -11,6 +11,7 @@ import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCaptured as run } from './run-captured.ts';
+import { defaultJobs } from '../../electron/cli/commands/build.ts';
 import { DEMO_SHEETS_FOLDER, readDemoManifest } from '../../electron/demo/demo-files.ts';
 import { demoSheetPng } from '../support/demo-sheet.ts';
 import { decodeScanFile } from '../../electron/io/decode-scan.ts';
@@ -87,6 +88,17 @@ describe('stemline build --jobs', () => {
     const result = await run(['build', 'sheet.png', '--chars', 'A', '-o', join(folder, 'never.otf'), '--jobs', '-1']);
     expect(result.code).toBe(2);
     expect(result.err).toMatch(/^stemline build: Option '--jobs' argument is ambiguous\. .*--jobs=-XYZ'\. See "stemline --help"\.\n$/);
+  });
+
+  it.each([
+    [1, 16, 1],
+    [4, 2, 1],
+    [4, 3, 2],
+    [8, 4, 2],
+    [8, 8, 5],
+    [3, 1, 1],
+  ])('by default builds %i sheets on %i cores with %i threads (one per sheet, one per 1.5 cores)', (sheets, cores, threads) => {
+    expect(defaultJobs(sheets, cores)).toBe(threads);
   });
 
   it('lists --jobs in --help', async () => {

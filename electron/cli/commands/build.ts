@@ -38,7 +38,7 @@ export const buildCommand: CliCommand = {
     '--style NAME                   style name (default Regular)',
     '--upm N                        units per em (default 1000)',
     `--cap-height UNITS             the drawn cap height becomes this (default ${DEFAULT_CAP_HEIGHT_UNITS} per 1000 units per em)`,
-    '--jobs N                       letters traced and fitted on N threads at once (default: one per sheet, up to the number of cores); the font is the same for any N',
+    '--jobs N                       sheets traced and fitted on N threads at once (default: one per sheet, up to two thirds of the number of cores, rounded down); the font is the same for any N',
     ...FIT_OPTIONS_HELP,
     ...SCAN_OPTIONS_HELP.filter((line) => !line.startsWith('--characters')),
   ],
@@ -115,13 +115,27 @@ export const buildCommand: CliCommand = {
 };
 
 /**
- * `--jobs N`: a whole number of threads from 1 to MAX_JOBS. By default one per sheet,
- * up to one per core: a second thread costs about 1.8–2 s of CPU time to start and to
- * compile the fitter again (measured by `npm run bench -- jobs`), more than a single
- * 62-letter sheet's fitting (about 1.1 s), so one sheet is built on one thread.
+ * Cores one thread of a build keeps busy, measured on this project's 2-core machine
+ * (`npm run bench -- jobs`, per-thread CPU from /proc): on one thread, eight 62-letter
+ * sheets took 10.9 s of CPU in 7.1 s, only 6.2 s of it on the thread itself — the
+ * rest is V8 compiling the fitter and collecting garbage on its background threads,
+ * and the image decoder's threads. A second build thread therefore has about half a
+ * core to use on two cores, and costs 1.1–2 s of CPU of its own (its start-up and V8
+ * compiling the fitter again), so by default a thread is started only per 1.5 cores.
  */
+export const CORES_PER_BUILD_THREAD = 1.5;
+
+/**
+ * `--jobs N`: a whole number of threads from 1 to MAX_JOBS. By default one per sheet,
+ * up to one per CORES_PER_BUILD_THREAD cores: one thread on a 2-core machine, where
+ * `--jobs 2` measured no faster (README, "Speed of a whole build"), two on 4 cores.
+ */
+export function defaultJobs(sheetCount: number, cores: number = availableParallelism()): number {
+  return Math.max(1, Math.min(Math.floor(cores / CORES_PER_BUILD_THREAD), sheetCount));
+}
+
 export function jobsOption(value: string | undefined, sheetCount = Infinity): number {
-  if (value === undefined) return Math.max(1, Math.min(availableParallelism(), sheetCount));
+  if (value === undefined) return defaultJobs(sheetCount);
   const jobs = Number(value);
   if (!/^\s*\d+\s*$/.test(value) || !Number.isInteger(jobs) || jobs < 1 || jobs > MAX_JOBS) {
     throw new CliUsageError(`stemline ${COMMAND}: --jobs takes a whole number of threads from 1 to ${MAX_JOBS}, not "${value}".`);
