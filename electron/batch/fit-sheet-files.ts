@@ -86,7 +86,7 @@ export async function fitSheetFiles(files: readonly string[], characters: string
     const traced = state.thread.trace(sheet, { kind: 'trace', path: files[sheet] as string, dpi: settings.dpi, scan: settings.scan });
     traced.then(traces[sheet]?.resolve, traces[sheet]?.reject).finally(() => {
       state.tracing--;
-      deal();
+      handOut();
     });
   };
   /**
@@ -96,7 +96,7 @@ export async function fitSheetFiles(files: readonly string[], characters: string
    * two sheets while another waits); and, when this thread is the only one, one ahead
    * too, so the next file is decoded while this one is fitted.
    */
-  const deal = (): void => {
+  const handOut = (): void => {
     for (const [index, state] of states.entries()) {
       while (!stopped && nextToGive < files.length && state.inHand < SHEETS_IN_HAND && state.tracing === 0) {
         const ahead = states.length === 1 || (index > 0 && files.length - nextToGive >= 2);
@@ -107,7 +107,7 @@ export async function fitSheetFiles(files: readonly string[], characters: string
   };
   const letGo = (state: ThreadState): void => {
     state.inHand--;
-    deal();
+    handOut();
   };
   const fitOn = (sheet: number, reference: ScaleReference | null): Promise<FittedSheet> => {
     const state = owner[sheet] as ThreadState;
@@ -125,7 +125,7 @@ export async function fitSheetFiles(files: readonly string[], characters: string
   const waitingForScale: number[] = [];
   const fitted: Array<Promise<FittedSheet>> = [];
   try {
-    deal();
+    handOut();
     for (let i = 0; i < files.length; i++) {
       const traced = await (traces[i] as Deferred<SheetTraceReport>).promise;
       events.onDecodeNotes?.(i, traced.decodeNotes);

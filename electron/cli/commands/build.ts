@@ -116,12 +116,13 @@ export const buildCommand: CliCommand = {
 
 /**
  * Cores one thread of a build keeps busy, measured on this project's 2-core machine
- * (`npm run bench -- jobs`, per-thread CPU from /proc): on one thread, eight 62-letter
- * sheets took 10.9 s of CPU in 7.1 s, only 6.2 s of it on the thread itself — the
- * rest is V8 compiling the fitter and collecting garbage on its background threads,
- * and the image decoder's threads. A second build thread therefore has about half a
- * core to use on two cores, and costs 1.1–2 s of CPU of its own (its start-up and V8
- * compiling the fitter again), so by default a thread is started only per 1.5 cores.
+ * (`npm run bench -- jobs`, which reads the main thread's CPU time from /proc): with
+ * `--jobs 1`, eight 62-letter sheets took 11.2 s of CPU time, only 6.0 s of it on the
+ * build thread — the rest is V8 optimizing the tracer and fitter and collecting
+ * garbage on its background threads, and the image decoder's threads. A second build
+ * thread therefore finds about half a core free on two cores, and adds 1.4–2.8 s of
+ * CPU time of its own (its start-up and V8 compiling the same code again), so it was
+ * measured slower, not faster; a thread is started only per 1.5 cores.
  */
 export const CORES_PER_BUILD_THREAD = 1.5;
 
