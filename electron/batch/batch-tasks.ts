@@ -1,12 +1,11 @@
-// The two kinds of work a batch build hands out — trace one sheet file, fit one
-// letter — as plain data in and out, so the same functions run in the calling
-// thread (`--jobs 1`) or in a worker thread (batch-worker.ts) with the same result.
+// Tracing one sheet file of a batch build, as plain data in and out, so it runs the
+// same in the calling thread (`--jobs 1`) or in a worker thread (batch-worker.ts).
 // Errors the user must see (a file that will not decode, a page with no ink) cross
 // the thread boundary as plain data and are rebuilt as the same error classes.
 import { decodeScanFile } from '../io/decode-scan.ts';
 import { InputError, type InputErrorKind } from '../io/input-error.ts';
 import { RasterError, type RasterErrorCode, type TraceScanOptions, type TraceScanResult } from '../../core/raster/index.ts';
-import { fitLetterJob, traceSheetScan, type FittableScan, type LetterFitJob, type LetterFitOutcome } from '../../core/pipeline/index.ts';
+import { traceSheetScan, type FittableScan } from '../../core/pipeline/index.ts';
 
 /** Trace the sheet in `path`: decode it, apply the resolution override, trace. */
 export interface TraceSheetTask {
@@ -16,14 +15,6 @@ export interface TraceSheetTask {
   readonly dpi: number | undefined;
   readonly scan: TraceScanOptions;
 }
-
-/** Fit one letter. */
-export interface FitLetterTask {
-  readonly kind: 'fit';
-  readonly job: LetterFitJob;
-}
-
-export type BatchTask = TraceSheetTask | FitLetterTask;
 
 /** The part of a sheet's trace that fitting needs (no rasters). */
 export type TracedSheetScan = FittableScan & Pick<TraceScanResult, 'resolution'>;
@@ -38,8 +29,6 @@ export interface TracedSheetFile {
   readonly scan: TracedSheetScan | null;
   readonly traceError: PortableError | null;
 }
-
-export type BatchTaskResult<T extends BatchTask> = T extends TraceSheetTask ? TracedSheetFile : LetterFitOutcome;
 
 /** An error of the user's input, as plain data. */
 export type PortableError =
@@ -65,12 +54,6 @@ export async function traceSheetFile(task: TraceSheetTask): Promise<TracedSheetF
     if (error instanceof RasterError) return { decodeNotes: decoded.notes, scan: null, traceError: toPortableError(error) };
     throw error;
   }
-}
-
-/** Runs one task in this thread. */
-export async function runBatchTask<T extends BatchTask>(task: T): Promise<BatchTaskResult<T>> {
-  if (task.kind === 'trace') return (await traceSheetFile(task)) as BatchTaskResult<T>;
-  return fitLetterJob(task.job) as BatchTaskResult<T>;
 }
 
 /** The error as plain data for another thread. */

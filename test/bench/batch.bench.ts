@@ -2,7 +2,8 @@
 // a user runs it:
 //  - the speed-up of `stemline build --jobs 2` over `--jobs 1`, on one 62-letter
 //    600-dpi sheet and on four of them (248 letters), measured alternately and more
-//    than once because the machine is shared; goal ≥ 1.8× on 2 cores;
+//    than once because the machine is shared; goal ≥ 1.8× on 2 cores. Other sheet
+//    counts and more runs: STEMLINE_BENCH_JOBS_SHEETS=1,4,8 STEMLINE_BENCH_JOBS_RUNS=5;
 //  - a 10,000-glyph font from 100 synthetic 300-dpi sheets of 100 shapes each (rings,
 //    bars, chevrons; hundred-letter-sheet.ts with one seed per sheet) mapped to
 //    private-use code points: its time, and its peak resident memory with the
@@ -24,12 +25,14 @@ const root = fileURLToPath(new URL('../..', import.meta.url));
 const tsx = join(root, 'node_modules', '.bin', 'tsx');
 const child = fileURLToPath(new URL('./build-child.ts', import.meta.url));
 
-/** Builds timed per setting: alternated 1, 2, 1, 2…, so a burst of load on the shared machine hits both. */
-const SPEED_UP_RUNS = 3;
+/** Builds timed per setting by default: alternated 1, 2, 1, 2…, so a burst of load on the shared machine hits both. */
+const DEFAULT_SPEED_UP_RUNS = 3;
 /** Goal for --jobs 2 over --jobs 1 on 2 cores. */
 const SPEED_UP_GOAL = 1.8;
-/** Sheets in the larger speed-up case: the 62-letter sheet drawn by four hands (seeds). */
-const MULTI_SHEET_COUNT = 4;
+/** Sheet counts of the speed-up cases by default: one sheet, and the 62-letter sheet drawn by four hands (seeds). */
+const DEFAULT_SPEED_UP_SHEETS = [1, 4];
+/** Most sheets a speed-up case may ask for (one seed each; each adds about a second per build). */
+const MAX_SPEED_UP_SHEETS = 32;
 /** Glyphs of the synthetic batch. */
 const BATCH_GLYPHS = 10_000;
 /** First private-use code point of the batch: Supplementary Private Use Area-A (Unicode, U+F0000–U+FFFFD), room for every glyph. */
@@ -46,6 +49,8 @@ interface ChildResult {
   ms: number;
   /** CPU time of every thread of the build, ms. */
   cpuMs: number;
+  /** CPU time of the build's main thread, ms (null where it cannot be read). */
+  mainCpuMs: number | null;
   glyphLines: number;
   maxRssMiB: number;
   rssAfterSheetMiB: number[];
@@ -91,47 +96,64 @@ async function twoThreadCeiling(): Promise<number> {
   return (2 * one) / two;
 }
 
+/** A whole number from the environment variable `name` within 1…max, or `fallback` when unset. */
+function countsFromEnvironment(name: string, fallback: readonly number[], max: number): number[] {
+  const value = process.env[name];
+  if (value === undefined || value.trim() === '') return [...fallback];
+  const counts = value.split(',').map((part) => Number(part.trim()));
+  if (counts.some((count) => !Number.isInteger(count) || count < 1 || count > max)) throw new Error(`${name} takes whole numbers from 1 to ${max}, separated by commas, not "${value}".`);
+  return counts;
+}
+
 /** --jobs 1 and --jobs 2 alternately on the sheets; the medians, their ratio and the tasks for the report. */
-function speedUp(label: string, sheets: readonly string[], characters: string, folder: string): { line: string; tasks: MeasuredTask[] } {
-  const times = new Map<number, number[]>([[1, []], [2, []]]);
-  const cpu = new Map<number, number[]>([[1, []], [2, []]]);
-  for (let run = 0; run < SPEED_UP_RUNS; run++) {
+function speedUp(label: string, sheets: readonly string[], characters: string, folder: string, runs: number): { line: string; tasks: MeasuredTask[] } {
+  const results = new Map<number, ChildResult[]>([[1, []], [2, []]]);
+  for (let run = 0; run < runs; run++) {
     for (const jobs of [1, 2]) {
-      const result = runBuild([...sheets, '--chars', characters, '-o', join(folder, `speed-${jobs}.otf`), '--family', 'Speed', '--jobs', String(jobs)]);
-      times.get(jobs)?.push(result.ms);
-      cpu.get(jobs)?.push(result.cpuMs);
+      results.get(jobs)?.push(runBuild([...sheets, '--chars', characters, '-o', join(folder, `speed-${jobs}.otf`), '--family', 'Speed', '--jobs', String(jobs)]));
     }
   }
-  const cpuMedian = (jobs: number) => (measured('cpu', cpu.get(jobs) ?? []).medianMs / 1000).toFixed(2);
-  const one = measured(`build --jobs 1: ${label}`, times.get(1) ?? []);
-  const two = measured(`build --jobs 2: ${label}`, times.get(2) ?? []);
+  const of = (jobs: number, pick: (result: ChildResult) => number) => (results.get(jobs) ?? []).map(pick);
+  const seconds = (ms: number) => (ms / 1000).toFixed(2);
+  const cpu = (jobs: number) => {
+    const all = measured('cpu', of(jobs, (r) => r.cpuMs)).medianMs;
+    const main = measured('main', of(jobs, (r) => r.mainCpuMs ?? Number.NaN)).medianMs;
+    return Number.isNaN(main) ? `${seconds(all)} s` : `${seconds(all)} s (main thread ${seconds(main)} s)`;
+  };
+  const one = measured(`build --jobs 1: ${label}`, of(1, (r) => r.ms));
+  const two = measured(`build --jobs 2: ${label}`, of(2, (r) => r.ms));
   const ratio = one.medianMs / two.medianMs;
-  const runs = (jobs: number) => (times.get(jobs) ?? []).map((ms) => (ms / 1000).toFixed(2)).join(', ');
+  const list = (jobs: number) => of(jobs, (r) => r.ms).map(seconds).join(', ');
   return {
     tasks: [one, two],
-    line: `build speed-up with 2 jobs: ${ratio.toFixed(2)}× on ${label} (median ${(one.medianMs / 1000).toFixed(2)} s → ${(two.medianMs / 1000).toFixed(2)} s; runs ${runs(1)} s and ${runs(2)} s; CPU time of all threads, median ${cpuMedian(1)} s → ${cpuMedian(2)} s; goal ≥ ${SPEED_UP_GOAL}× on 2 cores; this machine has ${availableParallelism()})`,
+    line: `build speed-up with 2 jobs: ${ratio.toFixed(2)}× on ${label} (median ${seconds(one.medianMs)} s ± ${seconds(one.madMs)} → ${seconds(two.medianMs)} s ± ${seconds(two.madMs)} (MAD); runs ${list(1)} s and ${list(2)} s; CPU time of all threads, median ${cpu(1)} → ${cpu(2)}; goal ≥ ${SPEED_UP_GOAL}× on 2 cores; this machine has ${availableParallelism()})`,
   };
 }
 
-/** The speed-up of --jobs 2 over --jobs 1, on one sheet and on four. */
+/** The speed-up of --jobs 2 over --jobs 1, on one sheet and on four (or the counts asked for). */
 export async function measureJobsSpeedUp(): Promise<{ lines: string[]; tasks: MeasuredTask[] }> {
+  const counts = countsFromEnvironment('STEMLINE_BENCH_JOBS_SHEETS', DEFAULT_SPEED_UP_SHEETS, MAX_SPEED_UP_SHEETS);
+  const [runs = DEFAULT_SPEED_UP_RUNS] = countsFromEnvironment('STEMLINE_BENCH_JOBS_RUNS', [DEFAULT_SPEED_UP_RUNS], 100);
   const folder = mkdtempSync(join(tmpdir(), 'stemline-bench-jobs-'));
   try {
     const first = join(folder, 'sheet-1.png');
     writeFileSync(first, await pipelineSheetPng());
     const sheets = [first];
-    for (let i = 1; i < MULTI_SHEET_COUNT; i++) {
+    for (let i = 1; i < Math.max(...counts); i++) {
       const path = join(folder, `sheet-${i + 1}.png`);
       writeFileSync(path, await sheetPng(renderDemoSheet({ name: `sheet-${i + 1}`, rows: PIPELINE_ROWS, seed: (DEMO_SHEETS[0]?.seed ?? 0) + i })));
       sheets.push(path);
     }
     const letters = PIPELINE_ROWS.join('').length;
     const before = await twoThreadCeiling();
-    const single = speedUp(`one ${letters}-letter 600-dpi sheet`, [first], multiSheetCharacters(0), folder);
-    const several = speedUp(`${MULTI_SHEET_COUNT} such sheets (${MULTI_SHEET_COUNT * letters} letters)`, sheets, sheets.map((_, i) => multiSheetCharacters(i)).join(' '), folder);
+    const cases = counts.map((count) => {
+      const label = count === 1 ? `one ${letters}-letter 600-dpi sheet` : `${count} such sheets (${count * letters} letters)`;
+      const named = sheets.slice(0, count);
+      return speedUp(label, named, named.map((_, i) => multiSheetCharacters(i)).join(' '), folder, runs);
+    });
     const after = await twoThreadCeiling();
     const ceiling = `two threads of plain arithmetic on this machine meanwhile: ${before.toFixed(2)}× before, ${after.toFixed(2)}× after (the ceiling while others share the cores)`;
-    return { lines: [single.line, several.line, ceiling], tasks: [...single.tasks, ...several.tasks] };
+    return { lines: [...cases.map((c) => c.line), ceiling], tasks: cases.flatMap((c) => c.tasks) };
   } finally {
     rmSync(folder, { recursive: true, force: true });
   }

@@ -3,11 +3,15 @@
 // as the pipeline traced and fitted in memory (core/pipeline traceSheets). The scans
 // are the demo's 600-dpi broad-nib alphabet (70 letters) and a 300-dpi sheet of three
 // shapes, so the characters are dealt across two sheets of different resolutions.
+// With 2 jobs the second sheet is held, traced and fitted by the worker (its scale set
+// by the first sheet, traced here); with 3 the second worker has no sheet of its own
+// and fits letters of the first, sent to it as packed jobs.
 import { describe, expect, it } from 'vitest';
 import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCaptured as run } from './run-captured.ts';
+import { defaultJobs } from '../../electron/cli/commands/build.ts';
 import { DEMO_SHEETS_FOLDER, readDemoManifest } from '../../electron/demo/demo-files.ts';
 import { demoSheetPng } from '../support/demo-sheet.ts';
 import { decodeScanFile } from '../../electron/io/decode-scan.ts';
@@ -36,18 +40,20 @@ async function build(paths: readonly string[], characters: string, jobs: string,
 }
 
 describe('stemline build --jobs', () => {
-  it('writes the same font bytes and the same per-glyph lines with 2 worker threads as in one thread, and as the pipeline in memory', async () => {
+  it('writes the same font bytes and the same per-glyph lines with 2 and 3 threads as in one thread, and as the pipeline in memory', async () => {
     const { paths, characters } = await sheets();
     const one = await build(paths, characters, '1', 'one');
-    const two = await build(paths, characters, '2', 'two');
-    expect(one.code, one.err).toBe(0);
-    expect(two.code, two.err).toBe(0);
     const oneBytes = readFileSync(one.output);
+    expect(one.code, one.err).toBe(0);
     expect(oneBytes.length).toBeGreaterThan(1000);
-    expect(Buffer.compare(readFileSync(two.output), oneBytes)).toBe(0);
-    expect(two.out).toBe(one.out);
     expect(one.out.trim().split('\n')).toHaveLength(73);
-    expect(two.err.replace(join(folder, 'two'), '')).toBe(one.err.replace(join(folder, 'one'), ''));
+    for (const jobs of ['2', '3']) {
+      const more = await build(paths, characters, jobs, `jobs-${jobs}`);
+      expect(more.code, more.err).toBe(0);
+      expect(Buffer.compare(readFileSync(more.output), oneBytes), `--jobs ${jobs}`).toBe(0);
+      expect(more.out).toBe(one.out);
+      expect(more.err.replace(join(folder, `jobs-${jobs}`), '')).toBe(one.err.replace(join(folder, 'one'), ''));
+    }
 
     const images = [];
     for (const path of paths) {
@@ -82,6 +88,17 @@ describe('stemline build --jobs', () => {
     const result = await run(['build', 'sheet.png', '--chars', 'A', '-o', join(folder, 'never.otf'), '--jobs', '-1']);
     expect(result.code).toBe(2);
     expect(result.err).toMatch(/^stemline build: Option '--jobs' argument is ambiguous\. .*--jobs=-XYZ'\. See "stemline --help"\.\n$/);
+  });
+
+  it.each([
+    [1, 16, 1],
+    [4, 2, 1],
+    [4, 3, 2],
+    [8, 4, 2],
+    [8, 8, 5],
+    [3, 1, 1],
+  ])('by default builds %i sheets on %i cores with %i threads (one per sheet, one per 1.5 cores)', (sheets, cores, threads) => {
+    expect(defaultJobs(sheets, cores)).toBe(threads);
   });
 
   it('lists --jobs in --help', async () => {

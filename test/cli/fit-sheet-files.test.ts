@@ -1,14 +1,18 @@
-// A build streams its sheets: with N threads, no more than N + 1 sheets are being
-// decoded and traced at once however many sheets are named, letters are handed out
-// only when the runner has room, and the fitted sheets are those of the pipeline in
-// memory (core/pipeline fitTracedSheets) in the sheets' order.
-import { describe, expect, it } from 'vitest';
-import { fitSheetFiles } from '../../electron/batch/fit-sheet-files.ts';
-import type { BatchRunner } from '../../electron/batch/batch-runner.ts';
-import type { BatchTask, BatchTaskResult, TracedSheetFile } from '../../electron/batch/batch-tasks.ts';
-import { fitLetterJob, fitTracedSheets, traceSheetScan } from '../../core/pipeline/index.ts';
+// A build streams its sheets over its threads with sheet affinity: each sheet is
+// traced, dealt and fitted by the one thread it was given to; no thread holds more
+// than SHEETS_IN_HAND sheets however many are named; and the fitted sheets are those
+// of the pipeline in memory (core/pipeline fitTracedSheets) in the sheets' order,
+// whichever thread finished first.
+import { afterAll, describe, expect, it } from 'vitest';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import sharp from 'sharp';
+import { fitSheetFiles, SHEETS_IN_HAND } from '../../electron/batch/fit-sheet-files.ts';
+import { LocalSheetThread, type SheetThread } from '../../electron/batch/sheet-threads.ts';
+import { fitTracedSheets, traceSheetScan } from '../../core/pipeline/index.ts';
 
-/** A 600-dpi sheet of a ring and a bar (an o and an l), drawn in code. */
+/** A 600-dpi sheet of a ring and a bar (an o and an l), drawn in code; `flat` gives the bar a flat top. */
 function ringAndBar(barHeight: number) {
   const width = 260;
   const height = 170;
@@ -19,84 +23,123 @@ function ringAndBar(barHeight: number) {
       if ((r < 55 && r > 30) || (x > 170 && x < 200 && y > 145 - barHeight && y < 145)) data[y * width + x] = 20;
     }
   }
-  return traceSheetScan({ raster: { width, height, data, dpi: 600 } });
+  return { width, height, data, dpi: 600 };
 }
+
+const folder = mkdtempSync(join(tmpdir(), 'stemline-sheets-'));
+afterAll(() => rmSync(folder, { recursive: true, force: true }));
+const sheetCount = 12;
+const rasters = Array.from({ length: sheetCount }, (_, i) => ringAndBar(80 + i));
+const files = await Promise.all(
+  rasters.map(async (raster, i) => {
+    const path = join(folder, `sheet-${i}.png`);
+    writeFileSync(path, await sharp(Buffer.from(raster.data), { raw: { width: raster.width, height: raster.height, channels: 1 } }).withMetadata({ density: 600 }).png().toBuffer());
+    return path;
+  }),
+);
+// Two letters a sheet; "I" on `scaleSheet` so that sheet sets the scale for all.
+const charactersWithScaleOn = (scaleSheet: number) => files.map((_, i) => (i === scaleSheet ? 'oI' : String.fromCodePoint(0xe000 + 2 * i, 0xe001 + 2 * i))).join(' ');
 
 /**
- * A runner that traces by looking the sheet up (no files) and lets the test decide
- * when traces finish: it records how many were running at once and how many fits
- * were handed out while it said it had no room.
+ * Threads that each really hold their sheets (this thread's code, one object per
+ * thread) and answer after a pause of their own, so they finish in a changing order;
+ * a record of which thread did what to which sheet, and the most sheets each held.
  */
-function recordingRunner(parallelism: number, sheets: ReadonlyMap<string, ReturnType<typeof ringAndBar>>) {
-  const stats = { tracesRunning: 0, mostTracesRunning: 0, fitsGiven: 0, fitsGivenWithoutRoom: 0 };
-  let roomFree = true;
-  const runner: BatchRunner = {
-    parallelism,
-    async run<T extends BatchTask>(task: T): Promise<BatchTaskResult<T>> {
-      if (task.kind === 'fit') {
-        stats.fitsGiven++;
-        if (!roomFree) stats.fitsGivenWithoutRoom++;
-        return fitLetterJob(task.job) as BatchTaskResult<T>;
-      }
-      stats.tracesRunning++;
-      stats.mostTracesRunning = Math.max(stats.mostTracesRunning, stats.tracesRunning);
-      await new Promise((resolve) => setTimeout(resolve, 5));
-      stats.tracesRunning--;
-      const traced = sheets.get(task.path);
-      if (!traced) throw new Error(`no sheet ${task.path}`);
-      const result: TracedSheetFile = { decodeNotes: [], scan: traced, traceError: null };
-      return result as BatchTaskResult<T>;
-    },
-    runHere(task) {
-      return this.run(task);
-    },
-    async room() {
-      // Room only every other time, after a pause: the build must wait for it.
-      roomFree = false;
-      await new Promise((resolve) => setTimeout(resolve, 1));
-      roomFree = true;
-    },
-    close: () => Promise.resolve(),
-  };
-  return { runner, stats };
+function recordingThreads(count: number) {
+  const log: Array<{ thread: number; step: 'trace' | 'deal' | 'fit' | 'release'; sheet: number }> = [];
+  const holding = Array.from({ length: count }, () => new Set<number>());
+  const mostHeld = Array.from({ length: count }, () => 0);
+  const pause = (thread: number, sheet: number) => new Promise((resolve) => setTimeout(resolve, ((thread * 7 + sheet * 3) % 5) + 1));
+  const threads: SheetThread[] = Array.from({ length: count }, (_, thread) => {
+    const real = new LocalSheetThread();
+    return {
+      async trace(sheet, task) {
+        log.push({ thread, step: 'trace', sheet });
+        holding[thread]?.add(sheet);
+        mostHeld[thread] = Math.max(mostHeld[thread] ?? 0, holding[thread]?.size ?? 0);
+        await pause(thread, sheet);
+        return real.trace(sheet, task);
+      },
+      async deal(sheet, characters) {
+        log.push({ thread, step: 'deal', sheet });
+        await pause(thread, sheet);
+        return real.deal(sheet, characters);
+      },
+      async fit(sheet, reference, settings, onLetter) {
+        log.push({ thread, step: 'fit', sheet });
+        await pause(thread, sheet);
+        const fitted = await real.fit(sheet, reference, settings, onLetter);
+        holding[thread]?.delete(sheet);
+        return fitted;
+      },
+      release(sheet) {
+        log.push({ thread, step: 'release', sheet });
+        holding[thread]?.delete(sheet);
+        real.release(sheet);
+      },
+    };
+  });
+  return { threads, log, mostHeld };
 }
 
-describe('streaming the sheets of a build', () => {
-  const sheetCount = 12;
-  const sheets = new Map(Array.from({ length: sheetCount }, (_, i) => [`sheet-${i}.png`, ringAndBar(80 + i)] as const));
-  const files = [...sheets.keys()];
-  // Two letters a sheet; "I" on the first so it sets the scale for all.
-  const characters = files.map((_, i) => (i === 0 ? 'oI' : String.fromCodePoint(0xe000 + 2 * i, 0xe001 + 2 * i))).join(' ');
+function inMemory(characters: string) {
+  return fitTracedSheets(rasters.map((raster) => traceSheetScan({ raster })), characters);
+}
 
-  it.each([1, 2, 4])('traces at most %i + 1 sheets at once and waits for room before each letter', async (parallelism) => {
-    const { runner, stats } = recordingRunner(parallelism, sheets);
-    const fitted = await fitSheetFiles(files, characters, { scan: {}, dpi: undefined, fit: {} }, runner);
-    expect(stats.mostTracesRunning).toBeGreaterThanOrEqual(1);
-    expect(stats.mostTracesRunning).toBeLessThanOrEqual(parallelism + 1);
-    expect(stats.fitsGiven).toBe(2 * sheetCount);
-    expect(stats.fitsGivenWithoutRoom).toBe(0);
+describe('streaming the sheets of a build over its threads', () => {
+  it.each([1, 2, 3])('on %i threads, keeps each sheet on one thread and holds at most SHEETS_IN_HAND on each', async (count) => {
+    const { threads, log, mostHeld } = recordingThreads(count);
+    let fittedLetters = 0;
+    const fitted = await fitSheetFiles(files, charactersWithScaleOn(0), { scan: {}, dpi: undefined, fit: {} }, threads, { onProgress: (p) => (fittedLetters = p.lettersFitted) });
     expect(fitted).toHaveLength(sheetCount);
+    expect(fittedLetters).toBe(2 * sheetCount);
+    for (let sheet = 0; sheet < sheetCount; sheet++) {
+      const steps = log.filter((entry) => entry.sheet === sheet);
+      expect(steps.map((entry) => entry.step)).toEqual(['trace', 'deal', 'fit']);
+      expect(new Set(steps.map((entry) => entry.thread)).size).toBe(1);
+    }
+    for (const most of mostHeld) expect(most).toBeLessThanOrEqual(SHEETS_IN_HAND);
+    if (count > 1) expect(new Set(log.map((entry) => entry.thread)).size).toBe(count);
   });
 
-  it('fits the sheets as the pipeline in memory does, in their order', async () => {
-    const fitted = await fitSheetFiles(files, characters, { scan: {}, dpi: undefined, fit: {} }, recordingRunner(3, sheets).runner);
-    const reference = fitTracedSheets([...sheets.values()], characters);
+  it.each([0, 5])('fits the sheets as the pipeline in memory does, in their order, with the scale set by sheet %i', async (scaleSheet) => {
+    const characters = charactersWithScaleOn(scaleSheet);
+    const fitted = await fitSheetFiles(files, characters, { scan: {}, dpi: undefined, fit: {} }, recordingThreads(3).threads);
+    const reference = inMemory(characters);
     expect(fitted.map((s) => s.letters.map((l) => [l.character, l.outline]))).toEqual(reference.map((s) => s.letters.map((l) => [l.character, l.outline])));
     expect(fitted.map((s) => s.unitsPerPixel)).toEqual(reference.map((s) => s.unitsPerPixel));
     expect(fitted.map((s) => s.notes)).toEqual(reference.map((s) => s.notes));
   });
 
-  it('names both counts when the characters run out, as the pipeline in memory does', async () => {
-    const short = characters.slice(0, -2);
-    const inMemory = (() => {
+  it('scales each sheet by its own letter height when no sheet shows flat-topped capitals, as the pipeline in memory does', async () => {
+    const characters = files.map((_, i) => String.fromCodePoint(0xe000 + 2 * i, 0xe001 + 2 * i)).join('');
+    const fitted = await fitSheetFiles(files, characters, { scan: {}, dpi: undefined, fit: {} }, recordingThreads(2).threads);
+    expect(fitted.map((s) => s.unitsPerPixel)).toEqual(inMemory(characters).map((s) => s.unitsPerPixel));
+    // …which is not the scale the flat-topped bar gives when it is called I.
+    expect(fitted[0]?.unitsPerPixel).not.toBe(inMemory(charactersWithScaleOn(0))[0]?.unitsPerPixel);
+  });
+
+  it('names both counts when the characters run out, as the pipeline in memory does, and lets the uncounted sheets go', async () => {
+    const short = charactersWithScaleOn(0).slice(0, -2);
+    const inMemoryError = (() => {
       try {
-        fitTracedSheets([...sheets.values()], short);
+        inMemory(short);
         return null;
       } catch (error) {
         return error as Error;
       }
     })();
-    expect(inMemory?.message).toMatch(/sheets show 24 letters .* but 22 characters were given/);
-    await expect(fitSheetFiles(files, short, { scan: {}, dpi: undefined, fit: {} }, recordingRunner(1, sheets).runner)).rejects.toThrow(inMemory?.message ?? 'never');
+    expect(inMemoryError?.message).toMatch(/sheets show 24 letters .* but 22 characters were given/);
+    const { threads, log } = recordingThreads(2);
+    await expect(fitSheetFiles(files, short, { scan: {}, dpi: undefined, fit: {} }, threads)).rejects.toThrow(inMemoryError?.message ?? 'never');
+    expect(log.filter((entry) => entry.step === 'release').map((entry) => entry.sheet)).toEqual([sheetCount - 1]);
+  });
+
+  it('reports a file that will not decode, after the sheets before it', async () => {
+    const broken = join(folder, 'broken.png');
+    writeFileSync(broken, 'not an image');
+    const notes: number[] = [];
+    await expect(fitSheetFiles([files[0] as string, broken, files[1] as string], 'oI xy zw', { scan: {}, dpi: undefined, fit: {} }, recordingThreads(2).threads, { onDecodeNotes: (sheet) => notes.push(sheet) })).rejects.toThrow(/broken\.png/);
+    expect(notes).toEqual([0]);
   });
 });

@@ -9,7 +9,7 @@ import { FontError } from '../../io/font/font-error.ts';
 import { glyphNameForCodePoint } from '../../io/font/glyph-names.ts';
 import { draftFont, DraftFontError, type DraftFont, type DraftGlyph, type FittedSheet } from '../../../core/pipeline/index.ts';
 import { fitSheetFiles } from '../../batch/fit-sheet-files.ts';
-import { runnerForJobs } from '../../batch/batch-runner.ts';
+import { threadsForJobs } from '../../batch/sheet-threads.ts';
 import { DEFAULT_CAP_HEIGHT_UNITS, DEFAULT_UNITS_PER_EM } from '../../../core/metrics/index.ts';
 import { CliUsageError } from '../cli-usage-error.ts';
 import { numberOption, parseCommandLine } from '../parse-options.ts';
@@ -38,7 +38,7 @@ export const buildCommand: CliCommand = {
     '--style NAME                   style name (default Regular)',
     '--upm N                        units per em (default 1000)',
     `--cap-height UNITS             the drawn cap height becomes this (default ${DEFAULT_CAP_HEIGHT_UNITS} per 1000 units per em)`,
-    '--jobs N                       letters traced and fitted on N threads at once (default: one per sheet, up to the number of cores); the font is the same for any N',
+    '--jobs N                       sheets traced and fitted on N threads at once (default: one per sheet, up to two thirds of the number of cores, rounded down); the font is the same for any N',
     ...FIT_OPTIONS_HELP,
     ...SCAN_OPTIONS_HELP.filter((line) => !line.startsWith('--characters')),
   ],
@@ -66,12 +66,13 @@ export const buildCommand: CliCommand = {
     const jobs = jobsOption(values.jobs, positionals.length);
 
     let font: DraftFont;
-    const runner = runnerForJobs(jobs);
+    // The workers start now, so their start-up overlaps this thread's first sheet.
+    const threads = threadsForJobs(jobs);
     const progress = streams.progress;
     try {
       let sheets: FittedSheet[];
       try {
-        sheets = await fitSheetFiles(positionals, values.chars, { scan: settings.trace, dpi: settings.dpi, fit, capHeightUnits: capHeight }, runner, {
+        sheets = await fitSheetFiles(positionals, values.chars, { scan: settings.trace, dpi: settings.dpi, fit, capHeightUnits: capHeight }, threads.threads, {
           onDecodeNotes: (_sheet, notes) => {
             for (const note of notes) {
               progress?.clear();
@@ -82,7 +83,7 @@ export const buildCommand: CliCommand = {
         });
       } finally {
         progress?.clear();
-        await runner.close();
+        await threads.close();
       }
       font = draftFont(sheets, {
         familyName: values.family ?? familyFromFileName(values.output),
@@ -114,13 +115,28 @@ export const buildCommand: CliCommand = {
 };
 
 /**
- * `--jobs N`: a whole number of threads from 1 to MAX_JOBS. By default one per sheet,
- * up to one per core: a second thread costs about 1.8–2 s of CPU time to start and to
- * compile the fitter again (measured by `npm run bench -- jobs`), more than a single
- * 62-letter sheet's fitting (about 1.1 s), so one sheet is built on one thread.
+ * Cores one thread of a build keeps busy, measured on this project's 2-core machine
+ * (`npm run bench -- jobs`, which reads the main thread's CPU time from /proc): with
+ * `--jobs 1`, eight 62-letter sheets took 11.2 s of CPU time, only 6.0 s of it on the
+ * build thread — the rest is V8 optimizing the tracer and fitter and collecting
+ * garbage on its background threads, and the image decoder's threads. A second build
+ * thread therefore finds about half a core free on two cores, and adds 1.4–2.8 s of
+ * CPU time of its own (its start-up and V8 compiling the same code again), so it was
+ * measured slower, not faster; a thread is started only per 1.5 cores.
  */
+export const CORES_PER_BUILD_THREAD = 1.5;
+
+/**
+ * `--jobs N`: a whole number of threads from 1 to MAX_JOBS. By default one per sheet,
+ * up to one per CORES_PER_BUILD_THREAD cores: one thread on a 2-core machine, where
+ * `--jobs 2` measured no faster (README, "Speed of a whole build"), two on 4 cores.
+ */
+export function defaultJobs(sheetCount: number, cores: number = availableParallelism()): number {
+  return Math.max(1, Math.min(Math.floor(cores / CORES_PER_BUILD_THREAD), sheetCount));
+}
+
 export function jobsOption(value: string | undefined, sheetCount = Infinity): number {
-  if (value === undefined) return Math.max(1, Math.min(availableParallelism(), sheetCount));
+  if (value === undefined) return defaultJobs(sheetCount);
   const jobs = Number(value);
   if (!/^\s*\d+\s*$/.test(value) || !Number.isInteger(jobs) || jobs < 1 || jobs > MAX_JOBS) {
     throw new CliUsageError(`stemline ${COMMAND}: --jobs takes a whole number of threads from 1 to ${MAX_JOBS}, not "${value}".`);
