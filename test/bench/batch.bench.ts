@@ -51,20 +51,50 @@ interface ChildResult {
   cpuMs: number;
   /** CPU time of the build's main thread, ms (null where it cannot be read). */
   mainCpuMs: number | null;
+  /** CPU time of the image decoder's threads, ms (null where it cannot be read). */
+  decoderCpuMs: number | null;
+  /** CPU time of every other thread (workers, V8's background compiler and collector, libuv's pool), ms (null where it cannot be read). */
+  otherThreadsCpuMs: number | null;
   glyphLines: number;
   maxRssMiB: number;
   rssAfterSheetMiB: number[];
   err: string;
 }
 
-/** Runs `stemline build ARGS` in a fresh process and returns what build-child.ts reports. */
-function runBuild(args: readonly string[]): ChildResult {
-  const run = spawnSync(tsx, [child, 'build', ...args], { cwd: root, encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
-  const line = run.stdout.trim().split('\n').pop() ?? '';
+/**
+ * Runs `stemline build ARGS` in a fresh process started with `nodeFlags`, and returns
+ * what build-child.ts reports, with the lines the process printed before its report
+ * (V8's traces, when a flag asks for them).
+ */
+function runBuild(args: readonly string[], nodeFlags: readonly string[] = []): ChildResult & { printed: string[] } {
+  const run = spawnSync(tsx, [...nodeFlags, child, 'build', ...args], { cwd: root, encoding: 'utf8', maxBuffer: 256 * 1024 * 1024 });
+  const printed = run.stdout.trim().split('\n');
+  // V8's traces go straight to the same output and may follow the report, as V8 goes on compiling while the process ends.
+  const at = printed.findLastIndex((printedLine) => printedLine.startsWith('{"code":'));
+  const line = at < 0 ? '' : (printed.splice(at, 1)[0] ?? '');
   if (run.status !== 0 || !line.startsWith('{')) throw new Error(`The benchmark build did not run (exit ${run.status}): ${run.stderr.slice(-2000)}`);
   const result = JSON.parse(line) as ChildResult;
   if (result.code !== 0) throw new Error(`The benchmark build failed (exit ${result.code}): ${result.err}`);
-  return result;
+  return { ...result, printed };
+}
+
+/**
+ * V8's optimizing compilations in `--trace-opt` output: how many, and of how many
+ * distinct functions (a function optimized again after a deoptimization, or after
+ * the collector dropped optimized code that only a short-lived closure or an
+ * on-stack replacement held, counts each time).
+ */
+function optimizingCompilations(printed: readonly string[]): { compilations: number; distinct: number } {
+  const functions = new Set<string>();
+  let compilations = 0;
+  for (const line of printed) {
+    // "[completed compiling 0x… <JSFunction name (sfi = 0x…)> (target TURBOFAN) [OSR] - took …" (V8 11, Node 20).
+    const match = /^\[completed compiling \S+ <JSFunction [^>]*\(sfi = (0x[0-9a-f]+)\)> \(target \w+\)( OSR)?/.exec(line);
+    if (!match) continue;
+    compilations++;
+    functions.add(`${match[1]}${match[2] ?? ''}`);
+  }
+  return { compilations, distinct: functions.size };
 }
 
 /** The characters of sheet `sheet` of the multi-sheet case: the first sheet's own letters, private-use ones on the others. */
@@ -106,7 +136,7 @@ function countsFromEnvironment(name: string, fallback: readonly number[], max: n
 }
 
 /** --jobs 1 and --jobs 2 alternately on the sheets; the medians, their ratio and the tasks for the report. */
-function speedUp(label: string, sheets: readonly string[], characters: string, folder: string, runs: number): { line: string; tasks: MeasuredTask[] } {
+function speedUp(label: string, sheets: readonly string[], characters: string, folder: string, runs: number): { lines: string[]; tasks: MeasuredTask[] } {
   const results = new Map<number, ChildResult[]>([[1, []], [2, []]]);
   for (let run = 0; run < runs; run++) {
     for (const jobs of [1, 2]) {
@@ -126,8 +156,36 @@ function speedUp(label: string, sheets: readonly string[], characters: string, f
   const list = (jobs: number) => of(jobs, (r) => r.ms).map(seconds).join(', ');
   return {
     tasks: [one, two],
-    line: `build speed-up with 2 jobs: ${ratio.toFixed(2)}× on ${label} (median ${seconds(one.medianMs)} s ± ${seconds(one.madMs)} → ${seconds(two.medianMs)} s ± ${seconds(two.madMs)} (MAD); runs ${list(1)} s and ${list(2)} s; CPU time of all threads, median ${cpu(1)} → ${cpu(2)}; goal ≥ ${SPEED_UP_GOAL}× on 2 cores; this machine has ${availableParallelism()})`,
+    lines: [speedUpLine(), oneThreadLine(label, sheets, characters, folder, results.get(1) ?? [])],
   };
+  function speedUpLine(): string {
+    return `build speed-up with 2 jobs: ${ratio.toFixed(2)}× on ${label} (median ${seconds(one.medianMs)} s ± ${seconds(one.madMs)} → ${seconds(two.medianMs)} s ± ${seconds(two.madMs)} (MAD); runs ${list(1)} s and ${list(2)} s; CPU time of all threads, median ${cpu(1)} → ${cpu(2)}; goal ≥ ${SPEED_UP_GOAL}× on 2 cores; this machine has ${availableParallelism()})`;
+  }
+}
+
+/**
+ * What one build thread costs besides itself, from the `--jobs 1` runs: the CPU time
+ * of its own thread, of the image decoder's threads and of V8's background threads,
+ * the cores it keeps busy and so the most 2 cores can give; then two more builds, one
+ * started with V8's concurrent recompilation off (its optimizing compiler then runs on
+ * the build thread, so what leaves the background threads is the compiler's share) and
+ * one with `--trace-opt`, to count its optimizing compilations.
+ */
+function oneThreadLine(label: string, sheets: readonly string[], characters: string, folder: string, runs: readonly ChildResult[]): string {
+  const args = [...sheets, '--chars', characters, '-o', join(folder, 'speed-v8.otf'), '--family', 'Speed', '--jobs', '1'];
+  const median = (pick: (result: ChildResult) => number | null) => measured('cpu', runs.map((r) => pick(r) ?? Number.NaN)).medianMs;
+  const [wall, main, decoder, other] = [median((r) => r.ms), median((r) => r.mainCpuMs), median((r) => r.decoderCpuMs), median((r) => r.otherThreadsCpuMs)];
+  if ([main, decoder, other].some(Number.isNaN)) return `one build thread on ${label}: the CPU time of single threads cannot be read here (Linux's /proc is needed)`;
+  const busy = (main + decoder + other) / wall;
+  const inline = runBuild(args, ['--no-concurrent-recompilation']);
+  const traced = optimizingCompilations(runBuild(args, ['--trace-opt']).printed);
+  const seconds = (ms: number | null) => ((ms ?? Number.NaN) / 1000).toFixed(2);
+  return (
+    `one build thread (--jobs 1) on ${label}, median CPU time: its own thread ${seconds(main)} s, the image decoder's ${seconds(decoder)} s, V8's background threads ${seconds(other)} s; ` +
+    `it keeps ${busy.toFixed(2)} cores busy, so 2 cores can give at most ${(2 / busy).toFixed(2)}×. ` +
+    `Started with node --no-concurrent-recompilation, the background threads use ${seconds(inline.otherThreadsCpuMs)} s and its own thread ${seconds(inline.mainCpuMs)} s: that share is V8's optimizing compiler. ` +
+    `It optimizes ${traced.compilations} times, ${traced.distinct} distinct functions (node --trace-opt)`
+  );
 }
 
 /** The speed-up of --jobs 2 over --jobs 1, on one sheet and on four (or the counts asked for). */
@@ -153,7 +211,7 @@ export async function measureJobsSpeedUp(): Promise<{ lines: string[]; tasks: Me
     });
     const after = await twoThreadCeiling();
     const ceiling = `two threads of plain arithmetic on this machine meanwhile: ${before.toFixed(2)}× before, ${after.toFixed(2)}× after (the ceiling while others share the cores)`;
-    return { lines: [...cases.map((c) => c.line), ceiling], tasks: cases.flatMap((c) => c.tasks) };
+    return { lines: [...cases.flatMap((c) => c.lines), ceiling], tasks: cases.flatMap((c) => c.tasks) };
   } finally {
     rmSync(folder, { recursive: true, force: true });
   }
