@@ -258,6 +258,8 @@ class JoinSearch {
   private readonly scale: number[];
   /** Per span: whether its handles crossed before rounding (a crossing is then not held against a candidate). */
   private readonly crossedBefore: boolean[];
+  /** Per span: whether an extremum inside it protruded past the limit before rounding (a protrusion is then not held against a candidate). */
+  private readonly protrudedBefore: boolean[];
   /**
    * Per node: searched but not chosen yet. A span with such an end is not measured while
    * choosing its other end (it is measured when that end is chosen), which halves the
@@ -289,6 +291,7 @@ class JoinSearch {
       return peak;
     });
     this.crossedBefore = spans.map((span) => span.segment.kind === 'cubic' && handlesCross(span.segment));
+    this.protrudedBefore = spans.map((span) => protrudes(span.segment));
     this.pending = nodes.map((node, i) => searchable(node, ideal[i]!));
     this.measured = spans.map(() => new Map());
     this.counts = [];
@@ -325,14 +328,21 @@ class JoinSearch {
           () => this.slopedCandidates(i, [rounded, ...this.ring(rounded)], t, 1),
         ];
     let fallback: { candidate: Candidate; error: number } | undefined;
+    // Within the tolerance, but with an extremum its unrounded spans did not have: kept only if no stage offers better.
+    let protruding: Candidate | undefined;
     for (const stage of stages) {
       const candidates = stage().sort(compareCandidates);
       for (const candidate of candidates.slice(0, CHECKED_CANDIDATES)) {
-        const error = this.spanErrors(i, candidate);
-        if (error <= this.tolerance) return candidate;
+        const { error, newExtremum } = this.spanErrors(i, candidate);
+        if (error <= this.tolerance && !newExtremum) return candidate;
+        if (error <= this.tolerance) {
+          protruding ??= candidate;
+          continue;
+        }
         if (!fallback || (candidate.bucket < fallback.candidate.bucket) || (candidate.bucket === fallback.candidate.bucket && error < fallback.error)) fallback = { candidate, error };
       }
     }
+    if (protruding) return protruding;
     if (fallback) return fallback.candidate;
     // Nothing to choose from (degenerate handles): round each coordinate.
     const j = this.ideal[i]!;
@@ -523,28 +533,38 @@ class JoinSearch {
   }
 
   /**
-   * The larger error of the two spans next to join i with the candidate in place, or
-   * Infinity when a candidate makes handles cross that did not before.
+   * The larger error of the two spans next to join i with the candidate in place
+   * (Infinity when a candidate makes handles cross that did not before), and whether
+   * it gives either span an extremum protruding past the limit that it did not have
+   * before rounding: the outline check would report one there (an end not chosen yet
+   * counts at its ideal position).
    */
-  private spanErrors(i: number, candidate: RoundedJoin): number {
+  private spanErrors(i: number, candidate: RoundedJoin): { error: number; newExtremum: boolean } {
     const { n, joins, tolerance } = this;
     const prev = (i - 1 + n) % n;
     const next = (i + 1) % n;
     const at = (k: number): RoundedJoin => (k === i ? candidate : joins[k]!);
     let worst = 0;
+    let newExtremum = false;
     const check = (s: number, segment: CubicSegment, otherEnd: number): void => {
       if (worst > tolerance) return;
       if (!this.crossedBefore[s] && handlesCross(segment)) {
         worst = Infinity;
         return;
       }
+      if (!this.protrudedBefore[s] && protrudes(segment)) newExtremum = true;
       if (otherEnd !== i && this.pending[otherEnd]) return;
       worst = Math.max(worst, this.measure(s, segment));
     };
     if (candidate.handleIn) check(prev, cubic(at(prev).point, at(prev).handleOut!, candidate.handleIn, candidate.point), prev);
     if (candidate.handleOut) check(i, cubic(candidate.point, candidate.handleOut, at(next).handleIn!, at(next).point), next);
-    return worst;
+    return { error: worst, newExtremum };
   }
+}
+
+/** Whether a cubic has an extremum inside it protruding past EXTREMUM_PROTRUSION_LIMIT (extrema.ts), which the outline check reports. */
+function protrudes(segment: FitSpan['segment']): boolean {
+  return segment.kind === 'cubic' && segmentExtrema(segment).some((e) => e.protrusion > EXTREMUM_PROTRUSION_LIMIT);
 }
 
 function squaredDistance(a: Point | undefined, b: Point | undefined): number {
