@@ -30,7 +30,9 @@
  * Candidates are ranked by, in this order of priority:
  * (a) both adjacent spans within the tolerance of the chain (measured again with
  *     span-error.ts) and no new crossing handles: a hard requirement while any
- *     candidate meets it;
+ *     candidate meets it; next, no extremum protruding past the limit of extrema.ts in
+ *     an adjacent span that did not have one before rounding (a candidate within the
+ *     tolerance that adds one is taken only when no stage offers one that does not);
  * (b) collinearity: the turn between the two handle directions at most
  *     {@link COLLINEAR_DEGREES} (exactly 0 on axis-aligned joins), else as small as
  *     the grid allows;
