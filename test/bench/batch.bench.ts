@@ -135,6 +135,11 @@ function countsFromEnvironment(name: string, fallback: readonly number[], max: n
   return counts;
 }
 
+/** Milliseconds as seconds for the printed lines, two decimals ("NaN" where a figure could not be read). */
+function seconds(ms: number | null): string {
+  return ((ms ?? Number.NaN) / 1000).toFixed(2);
+}
+
 /** --jobs 1 and --jobs 2 alternately on the sheets; the medians, their ratio and the tasks for the report. */
 function speedUp(label: string, sheets: readonly string[], characters: string, folder: string, runs: number): { lines: string[]; tasks: MeasuredTask[] } {
   const results = new Map<number, ChildResult[]>([[1, []], [2, []]]);
@@ -144,7 +149,6 @@ function speedUp(label: string, sheets: readonly string[], characters: string, f
     }
   }
   const of = (jobs: number, pick: (result: ChildResult) => number) => (results.get(jobs) ?? []).map(pick);
-  const seconds = (ms: number) => (ms / 1000).toFixed(2);
   const cpu = (jobs: number) => {
     const all = measured('cpu', of(jobs, (r) => r.cpuMs)).medianMs;
     const main = measured('main', of(jobs, (r) => r.mainCpuMs ?? Number.NaN)).medianMs;
@@ -179,7 +183,6 @@ function oneThreadLine(label: string, sheets: readonly string[], characters: str
   const busy = (main + decoder + other) / wall;
   const inline = runBuild(args, ['--no-concurrent-recompilation']);
   const traced = optimizingCompilations(runBuild(args, ['--trace-opt']).printed);
-  const seconds = (ms: number | null) => ((ms ?? Number.NaN) / 1000).toFixed(2);
   return (
     `one build thread (--jobs 1) on ${label}, median CPU time: its own thread ${seconds(main)} s, the image decoder's ${seconds(decoder)} s, V8's background threads ${seconds(other)} s; ` +
     `it keeps ${busy.toFixed(2)} cores busy, so 2 cores can give at most ${(2 / busy).toFixed(2)}×. ` +

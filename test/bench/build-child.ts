@@ -3,9 +3,9 @@
 // and prints one JSON line: exit code, wall time, CPU time of all its threads and of
 // its main thread alone, of the image decoder's threads and of the other threads
 // (the workers, V8's background compiling and collecting, libuv's pool), the glyph
-// lines written, peak
-// resident memory of the whole process (its worker threads included) and the
-// resident memory each time another sheet has been traced — flat if the build streams.
+// lines written, peak resident memory of the whole process (its worker threads
+// included) and the resident memory each time another sheet has been traced — flat
+// if the build streams.
 import { readdirSync, readFileSync } from 'node:fs';
 import { runCli } from '../../electron/cli/run-cli.ts';
 
