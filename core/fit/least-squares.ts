@@ -9,8 +9,9 @@
  * steps on (B(u) − P)·B′(u) = 0 then move each point's parameter towards its nearest
  * curve point, and the handles are solved again. Where a corner leaves an end tangent
  * free, that handle's two coordinates are unknowns of the same linear least-squares
- * problem (up to 4 × 4). When the handle lengths come out non-positive or the system is
- * singular, Schneider's fallback applies: both handles a third of the chord.
+ * problem (up to 4 × 4). When the handle lengths come out non-positive or longer than
+ * the polyline fitted, or the system is singular, Schneider's fallback applies: both
+ * handles a third of the chord.
  *
  * Error: the largest true distance from the stretch's points to the cubic. The
  * parametric distance |B(uᵢ) − Pᵢ| is an upper bound on the true distance, so only the
@@ -39,6 +40,18 @@ const STALLED_IMPROVEMENT = 0.01;
 const FALLBACK_HANDLE_SHARE = 1 / 3;
 /** Handle lengths below this share of the chord count as degenerate (Schneider's ε test). */
 const DEGENERATE_HANDLE_SHARE = 1e-3;
+/**
+ * A handle longer than the whole polyline it was fitted to (start, the stretch's points,
+ * end) counts as degenerate too. The error is measured from the points to the curve, so
+ * a cubic that runs far away and back between two of them is not seen by it. Few points
+ * with nearly parallel end tangents make the normal equations nearly singular, and
+ * their solution can put a handle anywhere: measured, two chain points between two
+ * collinear lines of Linux Libertine's e at a 0.375-unit tolerance gave a handle 2·10⁸
+ * units long, and rounding that contour to the grid ran out of memory. No drawn curve
+ * needs one: the handle of a circular arc's cubic is (4/3)·tan(θ/4)·r against an arc
+ * of θ·r, 0.33 of the arc at 90° and 0.42 at 180°.
+ */
+const MAX_HANDLE_REACH_SHARE = 1;
 /**
  * After the first solve, a fit whose parametric error is this many tolerances is not
  * refined further (the reparameterisation cannot rescue it); used only to save time
@@ -107,9 +120,9 @@ export function fitCubic(request: CubicFitRequest, tolerance: number, quick = fa
   const lastPoint = wrapIndex(chain, last);
   const lead = Math.hypot(chain.xs[firstPoint]! + ox - start.x, chain.ys[firstPoint]! + oy - start.y);
   const tail = Math.hypot(chain.xs[lastPoint]! + ox - end.x, chain.ys[lastPoint]! + oy - end.y);
-  chordLengthParameters(chain, first, m, lead, tail, u);
+  const reach = chordLengthParameters(chain, first, m, lead, tail, u);
 
-  let segment = solveHandles(request, u, m, chord);
+  let segment = solveHandles(request, u, m, chord, reach);
   const rounds = quick ? QUICK_REPARAMETERIZATIONS : MAX_REPARAMETERIZATIONS;
   let previousError = Infinity;
   for (let iteration = 0; iteration < rounds; iteration++) {
@@ -117,7 +130,7 @@ export function fitCubic(request: CubicFitRequest, tolerance: number, quick = fa
     if (error <= tolerance * 0.25 || error > previousError * (1 - STALLED_IMPROVEMENT)) break;
     if (quick && iteration === 0 && error > HOPELESS_ERROR_FACTOR * tolerance) return { segment, maxError: error, worstIndex: first };
     previousError = error;
-    segment = solveHandles(request, u, m, chord);
+    segment = solveHandles(request, u, m, chord, reach);
   }
   const measured = measureErrors(segment, chain, first, last, u, tolerance, quick || verdictOnly);
   return { segment, maxError: measured.maxError, worstIndex: measured.worstIndex };
@@ -126,9 +139,9 @@ export function fitCubic(request: CubicFitRequest, tolerance: number, quick = fa
 /**
  * Chord-length parameters of the m points from `first`, with the distances `lead`
  * (from the curve's start to the first point) and `tail` (last point to the end)
- * included in the polygon, written into u.
+ * included in the polygon, written into u. Returns the polygon's length.
  */
-function chordLengthParameters(chain: BoundaryChain, first: number, m: number, lead: number, tail: number, u: Float64Array): void {
+function chordLengthParameters(chain: BoundaryChain, first: number, m: number, lead: number, tail: number, u: Float64Array): number {
   const n = chain.count;
   let i = wrapIndex(chain, first);
   const arc = chain.arc;
@@ -144,6 +157,7 @@ function chordLengthParameters(chain: BoundaryChain, first: number, m: number, l
   }
   const total = u[m - 1]! + tail || 1;
   for (let k = 0; k < m; k++) u[k] = u[k]! / total;
+  return total;
 }
 
 /** Straight-chord cubic with handles a third of the chord along the tangents (or the chord). */
@@ -174,7 +188,7 @@ const handleSolution = new Float64Array(4);
  * every trial fit), and the columns of a free handle are (b, 0) and (0, b), whose zero
  * products need not be summed.
  */
-function solveHandles(request: CubicFitRequest, u: Float64Array, m: number, chord: number): CubicSegment {
+function solveHandles(request: CubicFitRequest, u: Float64Array, m: number, chord: number, reach: number): CubicSegment {
   const { chain, first, start, end, startTangent, endTangent } = request;
   const ox = chain.origin.x;
   const oy = chain.origin.y;
@@ -313,21 +327,24 @@ function solveHandles(request: CubicFitRequest, u: Float64Array, m: number, chor
   normalRhs[0] = r0; normalRhs[1] = r1; normalRhs[2] = r2; normalRhs[3] = r3;
   const z = handleSolution;
   if (!solveSymmetric(a, normalRhs, n, z)) return fallbackCubic(request, chord);
+  const longest = MAX_HANDLE_REACH_SHARE * reach;
   let p1: Point;
   let p2: Point;
   if (startTangent) {
     const alpha = z[0]!;
-    if (!(alpha > DEGENERATE_HANDLE_SHARE * chord)) return fallbackCubic(request, chord);
+    if (!(alpha > DEGENERATE_HANDLE_SHARE * chord && alpha <= longest)) return fallbackCubic(request, chord);
     p1 = { x: start.x + alpha * startTangent.x, y: start.y + alpha * startTangent.y };
   } else {
     p1 = { x: z[0]!, y: z[1]! };
+    if (!(Math.hypot(p1.x - sx, p1.y - sy) <= longest)) return fallbackCubic(request, chord);
   }
   if (endTangent) {
     const alpha = z[n1]!;
-    if (!(alpha > DEGENERATE_HANDLE_SHARE * chord)) return fallbackCubic(request, chord);
+    if (!(alpha > DEGENERATE_HANDLE_SHARE * chord && alpha <= longest)) return fallbackCubic(request, chord);
     p2 = { x: end.x - alpha * endTangent.x, y: end.y - alpha * endTangent.y };
   } else {
     p2 = { x: z[n1]!, y: z[n1 + 1]! };
+    if (!(Math.hypot(p2.x - ex, p2.y - ey) <= longest)) return fallbackCubic(request, chord);
   }
   return cubic(start, p1, p2, end);
 }

@@ -53,6 +53,26 @@ describe('least-squares cubic', () => {
     );
   });
 
+  it('never puts a handle farther out than the polyline it fits, however few its points', () => {
+    // The stretch between two nearly collinear lines of Linux Libertine's e (crossbar,
+    // traced at 1 px per unit, fitted at 0.375 unit): two chain points, which the
+    // chord-length parameters put at u = 0 and u ≈ 1, so the normal equations leave the
+    // handle lengths all but free. Their solution put a handle 6·10⁸ units out, and a
+    // curve that far away is not seen by an error measured from the points to the curve.
+    // Reference: a circular arc's cubic has handles (4/3)·tan(θ/4)·r against an arc of
+    // θ·r (0.42 of the arc at 180°), so no drawn curve needs a handle longer than the arc.
+    const points = [{ x: 241.13, y: 247.05213179466418 }, { x: 240.13, y: 247.06629919007264 }];
+    const { chain } = prepareChain([...points, { x: 120, y: 248 }, { x: 120, y: 100 }, { x: 360, y: 100 }, { x: 360, y: 246 }]);
+    const start = { x: 241.12958225898154, y: 246.98194477789542 };
+    const end = { x: 240.1306948756941, y: 247.1817983090884 };
+    const fit = fitCubic({ chain, first: 0, last: 1, start, end, startTangent: { x: -0.9999822883451074, y: 0.005951722110662109 }, endTangent: { x: -0.9999819026446786, y: 0.00601617678667513 } }, 0.375);
+    const polyline = [start, ...points, end].reduce((sum, p, i, all) => (i === 0 ? 0 : sum + Math.hypot(p.x - all[i - 1]!.x, p.y - all[i - 1]!.y)), 0);
+    const { p0, p1, p2, p3 } = fit.segment;
+    expect(Math.hypot(p1.x - p0.x, p1.y - p0.y)).toBeLessThanOrEqual(polyline);
+    expect(Math.hypot(p3.x - p2.x, p3.y - p2.y)).toBeLessThanOrEqual(polyline);
+    expect(fit.maxError).toBeLessThanOrEqual(0.375);
+  });
+
   it('reports its error as a true distance: exact whenever above the tolerance', () => {
     const { chain } = prepareChain(sampledCubic({ x: 0, y: 0 }, { x: 0, y: 200 }, { x: 300, y: -200 }, { x: 300, y: 0 }));
     // A deliberately poor model: a nearly straight cubic with fixed horizontal tangents.
