@@ -441,9 +441,10 @@ const SIDE_CURL_NOISE_SIGMAS = 3;
  * Whether the chain, on one side of a corner candidate, still turns the corner's way
  * by more than {@link SIDE_CURL_DEGREES} (or {@link SIDE_CURL_NOISE_SIGMAS} standard
  * deviations of the scan's noise, `noisePx` in px) between two bands of
- * {@link SIDE_CURL_BAND_PX} beyond its rounded tip. `near` is the arc position where the tip ends, `limit` how far
- * the side may run (a neighbouring corner's tip), `sense` −1 for the side before the
- * apex and +1 for the side after it. False when the side is too short for both bands.
+ * {@link SIDE_CURL_BAND_PX} beyond its rounded tip. `near` is the arc position where
+ * the tip ends, `limit` how far the side may run (a neighbouring corner's tip), `sense`
+ * −1 for the side before the apex and +1 for the side after it. False when the side is
+ * too short for both bands.
  */
 function sideCurls(chain: BoundaryChain, limit: number, near: number, turn: number, sense: 1 | -1, pixel: number, noisePx: number): boolean {
   const band = SIDE_CURL_BAND_PX * pixel;

@@ -46,7 +46,7 @@ const DEGENERATE_HANDLE_SHARE = 1e-3;
  * a cubic that runs far away and back between two of them is not seen by it. Few points
  * with nearly parallel end tangents make the normal equations nearly singular, and
  * their solution can put a handle anywhere: measured, two chain points between two
- * collinear lines of Linux Libertine's e at a 0.375-unit tolerance gave a handle 2·10⁸
+ * collinear lines of Linux Libertine's e at a 0.375-unit tolerance gave a handle 6·10⁸
  * units long, and rounding that contour to the grid ran out of memory. No drawn curve
  * needs one: the handle of a circular arc's cubic is (4/3)·tan(θ/4)·r against an arc
  * of θ·r, 0.33 of the arc at 90° and 0.42 at 180°.
