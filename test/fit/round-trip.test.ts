@@ -211,7 +211,7 @@ describeWithFont('drawn crotches and brackets of Linux Libertine on the rough sc
     // their sides, fitted half in the round and half on the straight, turned by 35–67°
     // and the detector put a corner at each apex: 17 corners the font does not have in
     // these four letters. A candidate whose sides both still curl its way beyond the
-    // rounded tip is now a drawn round: measured 9, with the same 4 corners missed.
+    // rounded tip is now a drawn round: measured 7, with the same 4 corners missed.
     const fitted = glyphs.reduce((n, g) => n + g.fittedCorners, 0);
     const precise = glyphs.reduce((n, g) => n + g.preciseCorners, 0);
     const recalled = glyphs.reduce((n, g) => n + g.recalledCorners, 0);
