@@ -151,11 +151,47 @@ interface Candidate extends RoundedJoin {
 }
 
 /**
+ * How far a control point of the contour to round may lie outside the traced
+ * boundary's bounding box, as a share of the box's larger side: 1. A drawn curve's
+ * handles stay near it (a cubic's curve lies in its control points' hull, and a
+ * half-circle's handles stand 1/3 of its radius out); the rounding's searches run over
+ * lattice points along each handle, so a handle thousands of times too long (a
+ * degenerate fit, see least-squares.ts) would exhaust memory instead of failing.
+ */
+const CONTROL_POINT_REACH_SHARE = 1;
+
+/** Throws a clear error when a control point of `contour` is not finite or lies far outside the chain's bounding box (see CONTROL_POINT_REACH_SHARE). */
+function checkControlPoints(chain: BoundaryChain, contour: FittedContour): void {
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  for (let i = 0; i < chain.count; i++) {
+    minX = Math.min(minX, chain.xs[i]!);
+    maxX = Math.max(maxX, chain.xs[i]!);
+    minY = Math.min(minY, chain.ys[i]!);
+    maxY = Math.max(maxY, chain.ys[i]!);
+  }
+  const reach = CONTROL_POINT_REACH_SHARE * Math.max(maxX - minX, maxY - minY, 1);
+  const { x: ox, y: oy } = chain.origin;
+  for (const { segment } of contour.spans) {
+    const points = segment.kind === 'cubic' ? [segment.p0, segment.p1, segment.p2, segment.p3] : [segment.p0, segment.p1];
+    for (const p of points) {
+      const x = p.x - ox;
+      const y = p.y - oy;
+      if (Number.isFinite(x) && Number.isFinite(y) && x >= minX - reach && x <= maxX + reach && y >= minY - reach && y <= maxY + reach) continue;
+      throw new Error(
+        `the fitted outline has a control point at (${p.x.toFixed(1)}, ${p.y.toFixed(1)}), far outside the traced ink (${(minX + ox).toFixed(0)}…${(maxX + ox).toFixed(0)} × ${(minY + oy).toFixed(0)}…${(maxY + oy).toFixed(0)}): fit this letter again at another tolerance, or draw the contour with Draw through points`,
+      );
+    }
+  }
+}
+
+/**
  * The contour with every coordinate a multiple of `grid` (see the header for how
  * smooth joins are kept). Node tangents are replaced by the rounded handles'
  * directions; span errors are re-measured against the chain (exact above `tolerance`).
+ * Throws when a control point lies far outside the chain (CONTROL_POINT_REACH_SHARE).
  */
 export function roundToGrid(chain: BoundaryChain, contour: FittedContour, grid: number, tolerance: number, axisSnap = 0): FittedContour {
+  checkControlPoints(chain, contour);
   const snap = (v: number): number => Math.round(v / grid) * grid;
   const { nodes, spans } = contour;
   const n = nodes.length;

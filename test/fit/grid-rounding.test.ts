@@ -72,6 +72,20 @@ function turnAt(contour: FittedContour, i: number): number {
 
 const median = (values: readonly number[]): number => values.slice().sort((x, y) => x - y)[values.length >> 1]!;
 
+describe('grid rounding of a broken fit', () => {
+  it('refuses a control point far outside the traced ink with an error saying what to do, instead of searching the lattice along it', () => {
+    // Reference: a cubic lies inside the convex hull of its control points (Farin,
+    // "Curves and Surfaces for CAGD"), so the handles of a curve fitted to the ink stay
+    // near it. A degenerate least-squares fit once put a handle 6·10⁸ units out, and the
+    // searches along that handle ran out of memory.
+    const { chain, contour } = rotatedEllipse(120, 80, 0.3);
+    const first = contour.spans[0]!.segment as CubicSegment;
+    const broken: FittedContour = { ...contour, spans: contour.spans.map((span, k) => (k === 0 ? { ...span, segment: cubic(first.p0, { x: -6e8, y: 3e6 }, first.p2, first.p3) } : span)) };
+    expect(() => roundToGrid(chain, broken, 1, 1.5)).toThrow(/far outside the traced ink.*fit this letter again/);
+    expect(roundToGrid(chain, contour, 1, 1.5).spans).toHaveLength(4);
+  });
+});
+
 describe('rounding sloped smooth joins with irrational handles', () => {
   // 15°, 22.5° and 7.5° are 45°·1/3, 45°·1/2 and 45°·1/6; atan(1/√2) has no rational tangent at all.
   const rotations = [Math.PI / 12, Math.PI / 8, Math.PI / 24, Math.atan(Math.SQRT1_2), (5 * Math.PI) / 18];
