@@ -69,7 +69,8 @@
  * Inputs are not modified.
  */
 import type { Point, Vec } from '../geometry/vector.ts';
-import { cubic, evaluate, line, type CubicSegment } from '../geometry/segment.ts';
+import { controlPoints, cubic, evaluate, line, type CubicSegment } from '../geometry/segment.ts';
+import { boxContains } from '../geometry/bounds.ts';
 import { curvature } from '../geometry/curvature.ts';
 import { nearestPoint } from '../geometry/nearest.ts';
 import type { BoundaryChain } from './boundary-chain.ts';
@@ -169,16 +170,14 @@ function checkControlPoints(chain: BoundaryChain, contour: FittedContour): void 
     minY = Math.min(minY, chain.ys[i]!);
     maxY = Math.max(maxY, chain.ys[i]!);
   }
-  const reach = CONTROL_POINT_REACH_SHARE * Math.max(maxX - minX, maxY - minY, 1);
   const { x: ox, y: oy } = chain.origin;
+  const ink = { minX: minX + ox, minY: minY + oy, maxX: maxX + ox, maxY: maxY + oy };
+  const reach = CONTROL_POINT_REACH_SHARE * Math.max(maxX - minX, maxY - minY, 1);
   for (const { segment } of contour.spans) {
-    const points = segment.kind === 'cubic' ? [segment.p0, segment.p1, segment.p2, segment.p3] : [segment.p0, segment.p1];
-    for (const p of points) {
-      const x = p.x - ox;
-      const y = p.y - oy;
-      if (Number.isFinite(x) && Number.isFinite(y) && x >= minX - reach && x <= maxX + reach && y >= minY - reach && y <= maxY + reach) continue;
+    for (const p of controlPoints(segment)) {
+      if (Number.isFinite(p.x) && Number.isFinite(p.y) && boxContains(ink, p, reach)) continue;
       throw new Error(
-        `the fitted outline has a control point at (${p.x.toFixed(1)}, ${p.y.toFixed(1)}), far outside the traced ink (${(minX + ox).toFixed(0)}…${(maxX + ox).toFixed(0)} × ${(minY + oy).toFixed(0)}…${(maxY + oy).toFixed(0)}): fit this letter again at another tolerance, or draw the contour with Draw through points`,
+        `the fitted outline has a control point at (${p.x.toFixed(1)}, ${p.y.toFixed(1)}), far outside the traced ink (${ink.minX.toFixed(0)}…${ink.maxX.toFixed(0)} × ${ink.minY.toFixed(0)}…${ink.maxY.toFixed(0)}): fit this letter again at another tolerance, or draw the contour with Draw through points`,
       );
     }
   }
