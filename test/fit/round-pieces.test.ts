@@ -9,8 +9,7 @@ import { prepareChain } from '../../core/fit/boundary-chain.ts';
 import type { DetectedCorner } from '../../core/fit/corners.ts';
 import type { Point } from '../../core/geometry/index.ts';
 import { LIBERTINE, describeWithFont } from '../raster/require-font.ts';
-import { loadFont } from '../raster/reference-render.ts';
-import { ALL_GLYPHS, DEFAULT_TOLERANCE_PER_PIXEL, measureGlyph } from './round-trip-measure.ts';
+import { measureRoundTripGlyph } from './round-trip-measure.ts';
 import { polygonChain } from './synthetic-chains.ts';
 import { joinsOf, turnDegrees } from './support.ts';
 
@@ -89,9 +88,8 @@ describe('rounds drawn at a vertex', () => {
 
 describeWithFont('rounds of Linux Libertine', LIBERTINE, () => {
   it('fits the blunt bottoms of v and y as curves: every fitted corner is one of the font\'s', () => {
-    const font = loadFont(LIBERTINE.path);
     for (const character of 'vy') {
-      const glyph = measureGlyph('Linux Libertine Regular', font.charToGlyph(character).path.commands, character, 'clean 1 px/unit', { tolerance: DEFAULT_TOLERANCE_PER_PIXEL }, 5000 + ALL_GLYPHS.indexOf(character));
+      const glyph = measureRoundTripGlyph('Linux Libertine Regular', character, 'clean 1 px/unit');
       // Reference: the font's own corners (tangent turn > 20°), fonts-linuxlibertine.
       // Before rounds were told from corners, v had 3 and y 3 corners on their rounds.
       expect(glyph.fittedCorners - glyph.preciseCorners, character).toBe(0);

@@ -262,7 +262,7 @@ export function measureRoundTrip(options: RoundTripOptions = {}): RoundTripResul
       const commands = parsed.charToGlyph(character).path.commands;
       for (const variant of variants) {
         const fit: FitOptions = { ...options.fit, tolerance: options.fit?.tolerance ?? DEFAULT_TOLERANCE_PER_PIXEL / scaleOf(variant) };
-        glyphs.push(measureGlyph(font, commands, character, variant, fit, 5000 + index));
+        glyphs.push(measureGlyph(font, commands, character, variant, fit, NOISE_SEED_BASE + index));
       }
     });
   }
@@ -271,6 +271,20 @@ export function measureRoundTrip(options: RoundTripOptions = {}): RoundTripResul
 
 /** Tolerance per scan pixel used by the round trip (the fitter's default at 1 px per unit). */
 export const DEFAULT_TOLERANCE_PER_PIXEL = 1.5;
+
+/** The rough copy's noise seed of a glyph is this plus the glyph's place in the list measured. */
+const NOISE_SEED_BASE = 5000;
+
+/**
+ * One glyph measured exactly as the full round trip (all of ALL_GLYPHS) measures it:
+ * the same copy, the same noise seed, and the round trip's tolerance unless `fit` gives
+ * one. For tests that check a single letter against the figures of the whole run.
+ */
+export function measureRoundTripGlyph(font: RoundTripFont, character: string, variant: RoundTripVariant, fit: FitOptions = {}): GlyphMeasurement {
+  const commands = loadFont(ROUND_TRIP_FONTS[font]).charToGlyph(character).path.commands;
+  const tolerance = fit.tolerance ?? DEFAULT_TOLERANCE_PER_PIXEL / scaleOf(variant);
+  return measureGlyph(font, commands, character, variant, { ...fit, tolerance }, NOISE_SEED_BASE + ALL_GLYPHS.indexOf(character));
+}
 
 /** The summaries as rows for console.table. */
 export function summaryTable(summaries: readonly VariantSummary[]): Record<string, string | number>[] {

@@ -15,8 +15,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { CANTARELL, LIBERTINE, describeWithFont, type ReferenceFont } from '../raster/require-font.ts';
 import { contourSegments } from '../../core/outline/index.ts';
-import { ALL_GLYPHS, DEFAULT_TOLERANCE_PER_PIXEL, measureGlyph, measureRoundTrip, summaryTable, type GlyphMeasurement, type RoundTripFont, type VariantSummary } from './round-trip-measure.ts';
-import { loadFont } from '../raster/reference-render.ts';
+import { measureRoundTrip, measureRoundTripGlyph, summaryTable, type GlyphMeasurement, type RoundTripFont, type VariantSummary } from './round-trip-measure.ts';
 import { MIN_TOLERANCE_PIXELS } from '../../core/pipeline/index.ts';
 
 const SUBSET = 'aegnosBHRS28';
@@ -162,8 +161,7 @@ describeWithFont('near-vertical stems of Linux Libertine on the rough scan', LIB
   let glyphs: readonly GlyphMeasurement[] = [];
   beforeAll(() => {
     // The same rough copies as in the full round trip (each glyph's seed is its place in it).
-    const font = loadFont(LIBERTINE.path);
-    glyphs = [...'jkr'].map((c) => measureGlyph('Linux Libertine Regular', font.charToGlyph(c).path.commands, c, 'rough 1 px/unit', { tolerance: DEFAULT_TOLERANCE_PER_PIXEL }, 5000 + ALL_GLYPHS.indexOf(c)));
+    glyphs = [...'jkr'].map((c) => measureRoundTripGlyph('Linux Libertine Regular', c, 'rough 1 px/unit'));
   }, 60_000);
 
   it('leaves no extremum inside the gently bowed stems after rounding to the grid', () => {
@@ -179,8 +177,7 @@ describeWithFont('near-vertical stems of Linux Libertine on the rough scan', LIB
 describeWithFont('the serif tops of Linux Libertine y on the rough scan', LIBERTINE, () => {
   let glyph: GlyphMeasurement | undefined;
   beforeAll(() => {
-    const font = loadFont(LIBERTINE.path);
-    glyph = measureGlyph('Linux Libertine Regular', font.charToGlyph('y').path.commands, 'y', 'rough 1 px/unit', { tolerance: DEFAULT_TOLERANCE_PER_PIXEL }, 5000 + ALL_GLYPHS.indexOf('y'));
+    glyph = measureRoundTripGlyph('Linux Libertine Regular', 'y', 'rough 1 px/unit');
   }, 60_000);
 
   it('keeps the long flat top of a serif free of an extremum after rounding to the grid', () => {
@@ -200,9 +197,7 @@ describeWithFont('the serif tops of Linux Libertine y on the rough scan', LIBERT
 describeWithFont('drawn crotches and brackets of Linux Libertine on the rough scan', LIBERTINE, () => {
   let glyphs: readonly GlyphMeasurement[] = [];
   beforeAll(() => {
-    const font = loadFont(LIBERTINE.path);
-    // The copies of the full round trip (its noise seeds), where the figures below were measured.
-    glyphs = [...'bdxz'].map((c) => measureGlyph('Linux Libertine Regular', font.charToGlyph(c).path.commands, c, 'rough 1 px/unit', { tolerance: DEFAULT_TOLERANCE_PER_PIXEL }, 5000 + ALL_GLYPHS.indexOf(c)));
+    glyphs = [...'bdxz'].map((c) => measureRoundTripGlyph('Linux Libertine Regular', c, 'rough 1 px/unit'));
   }, 60_000);
 
   it('leaves rounds a few pixels across to the curve fit instead of putting corners in them', () => {
@@ -225,8 +220,7 @@ describeWithFont('drawn crotches and brackets of Linux Libertine on the rough sc
 describeWithFont('the serif corners of Linux Libertine P on a 1-bit scan', LIBERTINE, () => {
   let glyph: GlyphMeasurement | undefined;
   beforeAll(() => {
-    const font = loadFont(LIBERTINE.path);
-    glyph = measureGlyph('Linux Libertine Regular', font.charToGlyph('P').path.commands, 'P', '1-bit 1 px/unit', { tolerance: DEFAULT_TOLERANCE_PER_PIXEL }, 5000 + ALL_GLYPHS.indexOf('P'));
+    glyph = measureRoundTripGlyph('Linux Libertine Regular', 'P', '1-bit 1 px/unit');
   }, 60_000);
 
   it('keeps every corner the font has, though the staircase curls their sides', () => {
@@ -242,8 +236,7 @@ describeWithFont('the serif corners of Linux Libertine P on a 1-bit scan', LIBER
 describeWithFont('Linux Libertine e at the tightest tolerance the pipeline allows', LIBERTINE, () => {
   let glyph: GlyphMeasurement | undefined;
   beforeAll(() => {
-    const font = loadFont(LIBERTINE.path);
-    glyph = measureGlyph('Linux Libertine Regular', font.charToGlyph('e').path.commands, 'e', 'clean 1 px/unit', { tolerance: MIN_TOLERANCE_PIXELS }, 5000 + ALL_GLYPHS.indexOf('e'));
+    glyph = measureRoundTripGlyph('Linux Libertine Regular', 'e', 'clean 1 px/unit', { tolerance: MIN_TOLERANCE_PIXELS });
   }, 60_000);
 
   it('fits it within 2 units of the font\'s own outline, with its contours and winding', () => {
@@ -298,8 +291,7 @@ describeWithFont('brackets where the bowls of Linux Libertine meet their stems, 
 describeWithFont('the blunted apex of Cantarell 4 on the rough scan', CANTARELL, () => {
   let glyph: GlyphMeasurement | undefined;
   beforeAll(() => {
-    const font = loadFont(CANTARELL.path);
-    glyph = measureGlyph('Cantarell Regular', font.charToGlyph('4').path.commands, '4', 'rough 1 px/unit', { tolerance: DEFAULT_TOLERANCE_PER_PIXEL }, 5000 + ALL_GLYPHS.indexOf('4'));
+    glyph = measureRoundTripGlyph('Cantarell Regular', '4', 'rough 1 px/unit');
   }, 60_000);
 
   it('is drawn as the corner the font has, with no extremum left inside a segment', () => {
@@ -314,8 +306,7 @@ describeWithFont('the blunted apex of Cantarell 4 on the rough scan', CANTARELL,
 describeWithFont('the narrow stroke ends of Linux Libertine M and W on the rough scan', LIBERTINE, () => {
   let glyphs: readonly GlyphMeasurement[] = [];
   beforeAll(() => {
-    const font = loadFont(LIBERTINE.path);
-    glyphs = [...'MW'].map((c) => measureGlyph('Linux Libertine Regular', font.charToGlyph(c).path.commands, c, 'rough 1 px/unit', { tolerance: DEFAULT_TOLERANCE_PER_PIXEL }, 5000 + ALL_GLYPHS.indexOf(c)));
+    glyphs = [...'MW'].map((c) => measureRoundTripGlyph('Linux Libertine Regular', c, 'rough 1 px/unit'));
   }, 60_000);
 
   it('end in flats between corners, with no extremum inside a segment', () => {
