@@ -19,7 +19,10 @@
  * the sides run too nearly parallel to meet near the curve (the flat top of a narrow
  * apex or stroke end), the curve becomes its straight chord between two corners
  * instead, when both turn by more than a kink and the chord holds the traced points
- * within the tolerance. Points a user forced smooth are never touched.
+ * within the tolerance. Where both neighbours are lines that continue each other (one
+ * stem the line search cut in two, the curve bridging the cut), the three become one
+ * line, when that line holds every traced point of the three within the tolerance.
+ * Points a user forced smooth are never touched.
  */
 import type { Point, Vec } from '../geometry/vector.ts';
 import { normalize } from '../geometry/vector.ts';
@@ -30,6 +33,7 @@ import { intersectLines } from './corners.ts';
 import { EXTREMUM_PROTRUSION_LIMIT, segmentExtrema } from './extrema.ts';
 import type { FitNode, FitSpan, FittedContour } from './fitted-contour.ts';
 import { measureSpanError } from './span-error.ts';
+import { KINK_MIN_DEGREES } from './quality-report.ts';
 
 /**
  * Longest chord (grid cells) of a curve treated as tiny: 6. A curve that short has
@@ -106,7 +110,7 @@ export function cornerTinyCurves(chain: BoundaryChain, contour: FittedContour, t
     const candidates = spans.map((_, k) => k).filter((k) => k < n - 1 && chordOf(k) <= maxChord).sort((a, b) => chordOf(a) - chordOf(b));
     for (const i of candidates) {
       if (nearForcedSmooth(spans[i]!.first, spans[i]!.last)) continue;
-      const replaced = asCorner(chain, nodes, spans, i, tolerance, minTurn) ?? asBevel(chain, nodes, spans, i, tolerance, minTurn);
+      const replaced = asStraight(chain, nodes, spans, i, tolerance) ?? asCorner(chain, nodes, spans, i, tolerance, minTurn) ?? asBevel(chain, nodes, spans, i, tolerance, minTurn);
       if (!replaced) continue;
       nodes = replaced.nodes;
       spans = replaced.spans;
@@ -163,6 +167,49 @@ function asCorner(chain: BoundaryChain, nodes: readonly FitNode[], spans: readon
   // i − 1 arrives at it and the former span i + 1 leaves it.
   nextNodes[i] = cornerNode;
   return { nodes: nextNodes.filter((_, k) => k !== i + 1), spans: nextSpans.filter((_, k) => k !== i) };
+}
+
+/**
+ * Largest turn (degrees) between two lines on either side of a tiny curve that are
+ * taken for one line cut in two: 0.3°, the low end of the near-miss kink band
+ * (quality-report.ts). Lines meeting at more than that are a bend the scan shows;
+ * those this close are one stroke edge, and nothing but the cut lies between them.
+ * Measured on the round trip of Linux Libertine at 1 px per unit: M's right stem came
+ * out as two lines 0.02° apart, the line search stopped by a drift of 0.36 unit at one
+ * end of their union, with a 2-unit curve and two near-miss kinks between them.
+ */
+const CUT_LINE_MAX_TURN_DEGREES = KINK_MIN_DEGREES;
+
+/**
+ * Spans i − 1, i and i + 1 (a line, a tiny cubic, a line) replaced by one line from
+ * the first line's start to the second's end, or undefined unless the two lines turn
+ * by at most {@link CUT_LINE_MAX_TURN_DEGREES}, the new line turns by no more than that
+ * from either, and it holds every traced point of the three spans within the
+ * tolerance. Left alone next to the span that closes the contour (replacing it would
+ * move the contour's start).
+ */
+function asStraight(chain: BoundaryChain, nodes: readonly FitNode[], spans: readonly FitSpan[], i: number, tolerance: number): Contour | undefined {
+  const n = spans.length;
+  if (i < 1 || i + 1 > n - 2) return undefined;
+  const before = spans[i - 1]!;
+  const after = spans[i + 1]!;
+  if (before.segment.kind !== 'line' || after.segment.kind !== 'line' || spans[i]!.segment.kind !== 'cubic') return undefined;
+  const start = before.segment.p0;
+  const end = after.segment.p1;
+  const incoming = endDirection(before.segment, true);
+  const outgoing = endDirection(after.segment, false);
+  const merged = line(start, end);
+  const through = endDirection(merged, false);
+  if (!incoming || !outgoing || !through) return undefined;
+  const maxTurn = (CUT_LINE_MAX_TURN_DEGREES * Math.PI) / 180;
+  if (turnBetween(incoming, outgoing) > maxTurn || turnBetween(incoming, through) > maxTurn || turnBetween(through, outgoing) > maxTurn) return undefined;
+  const error = measureSpanError(chain, merged, before.first, after.last, tolerance);
+  if (error > tolerance) return undefined;
+  const mergedSpan: FitSpan = { segment: merged, first: before.first, last: after.last, maxError: error, carrier: { through: start, direction: through } };
+  const nextSpans = spans.slice();
+  nextSpans[i - 1] = mergedSpan;
+  // The curve and the second line go, and so do their start nodes i and i + 1.
+  return { nodes: nodes.filter((_, k) => k !== i && k !== i + 1), spans: nextSpans.filter((_, k) => k !== i && k !== i + 1) };
 }
 
 /**

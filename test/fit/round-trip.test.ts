@@ -250,6 +250,27 @@ describeWithFont('Linux Libertine e at the tightest tolerance the pipeline allow
   });
 });
 
+describeWithFont('the right stem of Linux Libertine M', LIBERTINE, () => {
+  let glyph: GlyphMeasurement | undefined;
+  beforeAll(() => {
+    glyph = measureRoundTripGlyph('Linux Libertine Regular', 'M', 'clean 1 px/unit');
+  }, 60_000);
+
+  it('is one straight line, not two with a tiny curve and two kinks between them', () => {
+    // Reference: the font's M draws its right stem, leaning 4° from the vertical, as one
+    // line of 422 units from (738.1, 121) to (708.3, 542) between the serif brackets. The
+    // line search stopped short of the union of its two halves (a drift of a third of a
+    // unit at one end), and the fit joined them with a 2-unit curve that rounding to the
+    // grid left at 4° to both: two near-miss kinks. Now the three are one line, at least
+    // as tall as the font's (measured: from (740, 100) to (707, 557)).
+    const leaning = glyph!.outline.contours.flatMap((c) => contourSegments(c)).filter((s) => s.kind === 'line' && s.p0.x !== s.p1.x && s.p0.x > 650 && Math.abs(s.p1.y - s.p0.y) >= 300);
+    expect(leaning).toHaveLength(1);
+    expect(Math.abs(leaning[0]!.p0.y - (leaning[0]!.kind === 'line' ? leaning[0]!.p1.y : 0))).toBeGreaterThanOrEqual(542 - 121);
+    expect(glyph!.kinks).toBe(0);
+    expect(glyph!.hausdorff).toBeLessThanOrEqual(2);
+  });
+});
+
 describeWithFont('blunted joins of Linux Libertine on a sharp scan at 0.5 px per unit', LIBERTINE, () => {
   let glyphs: readonly GlyphMeasurement[] = [];
   beforeAll(() => {

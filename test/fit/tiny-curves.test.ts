@@ -110,3 +110,59 @@ describe('blunted corners a few units across', () => {
     expect(cornerTinyCurves(chain, contour, 1.5, 1, 1)).toBe(contour);
   });
 });
+
+describe('a stem cut in two', () => {
+  /**
+   * A sloped stem 460 units long leaning 4° from the vertical, fitted as two lines with
+   * a 2-unit cubic bridging the cut between them (the fit's picture when the line
+   * search stops short of the union), closed by a bar and a second stem; the chain
+   * samples the straight stem every 0.25 unit, with the cut `bend` degrees off it.
+   */
+  function cutStem(bend: number): { chain: ReturnType<typeof prepareChain>['chain']; contour: FittedContour } {
+    const down = heading(-90 + 4);
+    const bent = heading(-90 + 4 + bend);
+    const top = { x: 100.3, y: 600.2 };
+    const cutStart = { x: top.x + down.x * 200, y: top.y + down.y * 200 };
+    const cutEnd = { x: cutStart.x + bent.x * 2, y: cutStart.y + bent.y * 2 };
+    const bottom = { x: cutEnd.x + bent.x * 258, y: cutEnd.y + bent.y * 258 };
+    const bridge = cubic(cutStart, { x: cutStart.x + bent.x * 0.7, y: cutStart.y + bent.y * 0.7 }, { x: cutEnd.x - bent.x * 0.7, y: cutEnd.y - bent.y * 0.7 }, cutEnd);
+    const right = { x: bottom.x + 80, y: bottom.y };
+    const rightTop = { x: top.x + 80, y: top.y };
+    const segments: (LineSegment | CubicSegment)[] = [line(top, cutStart), bridge, line(cutEnd, bottom), line(bottom, right), line(right, rightTop), line(rightTop, top)];
+    const samples: Point[] = [];
+    const starts: number[] = [];
+    for (const s of segments) {
+      starts.push(samples.length);
+      const p1 = s.kind === 'line' ? s.p1 : s.p3;
+      const steps = Math.max(4, Math.ceil(Math.hypot(p1.x - s.p0.x, p1.y - s.p0.y) * 4));
+      for (let k = 0; k < steps; k++) samples.push(evaluate(s, k / steps));
+    }
+    const { chain } = prepareChain(samples);
+    const nodes: FitNode[] = segments.map((s, k) => ({ point: s.p0, smooth: k === 1 || k === 2, tangentIn: null, tangentOut: null, extremum: null, corner: null, index: starts[k]!, pinned: true }));
+    const spans: FitSpan[] = segments.map((segment, k) => ({ segment, first: starts[k]!, last: k + 1 < segments.length ? starts[k + 1]! : samples.length, maxError: 0, carrier: null }));
+    return { chain, contour: { nodes, spans } };
+  }
+
+  it('becomes one line when its halves continue each other', () => {
+    // Reference: the near-miss kink band of outline checking (0.3°–8°, common practice):
+    // halves 0.1° apart are one stroke edge, and the bridge between them could only kink.
+    const { chain, contour } = cutStem(0.1);
+    const result = cornerTinyCurves(chain, contour, 1.5, 1, 1);
+    expect(result.spans).toHaveLength(4);
+    const stem = result.spans[0]!.segment;
+    expect(stem.kind).toBe('line');
+    expect(stem.p0).toEqual(contour.spans[0]!.segment.p0);
+    expect(stem.kind === 'line' ? stem.p1 : undefined).toEqual((contour.spans[2]!.segment as LineSegment).p1);
+    expect(result.spans[0]!.maxError).toBeLessThanOrEqual(1.5);
+    expect(result.spans[0]!.first).toBe(contour.spans[0]!.first);
+    expect(result.spans[0]!.last).toBe(contour.spans[2]!.last);
+    expect(result.nodes).toHaveLength(4);
+  });
+
+  it('keeps a bend of a degree, which one line would not hold', () => {
+    // 1° over 258 units puts the stem's end 4.5 units off the line through its top half,
+    // and a turn of 1° is too little for a corner.
+    const { chain, contour } = cutStem(1);
+    expect(cornerTinyCurves(chain, contour, 1.5, 1, 1)).toBe(contour);
+  });
+});
