@@ -88,6 +88,34 @@ describe('corner detection', () => {
     expect(cornersNear(15)).toBe(0);
   });
 
+  it('finds a 22° corner between two straight strokes, but not where a curve leaves a line at 22°', () => {
+    // Reference: the round trip counts a tangent turn of more than 20° as a corner. Two
+    // lines cannot join smoothly, so straight strokes meeting at 22° are a corner under
+    // the default corner angle of 25°; a curve leaving a line at that angle is not.
+    const vertex = { x: 200, y: 0 };
+    const turn = 22 * DEGREES;
+    const nearVertex = (points: Point[], noisePx = 0): number => {
+      const { chain } = prepareChain(points);
+      return detectCorners(chain, { ...settings, noisePx }).filter((c) => Math.hypot(chain.xs[c.index]! + chain.origin.x - vertex.x, chain.ys[c.index]! + chain.origin.y - vertex.y) < 6).length;
+    };
+    const lines = [{ x: 0, y: 0 }, vertex, { x: 200 + 200 * Math.cos(turn), y: 200 * Math.sin(turn) }, { x: 200 + 200 * Math.cos(turn), y: 300 }, { x: 0, y: 300 }];
+    expect(nearVertex(polygonChain(lines, 0.1, 3))).toBe(1);
+    // The same vertex on a 1-bit scan's noise (σ = 1/√12 px): too noisy to tell the
+    // sides straight, so the default angle holds.
+    expect(nearVertex(polygonChain(lines, 0.1, 3), 1 / Math.sqrt(12))).toBe(0);
+    // A line, then an arc of radius 40 px leaving it at 22° and turning on through 90°.
+    const curved: Point[] = [];
+    for (let x = 0; x < 200; x += 1) curved.push({ x, y: 0 });
+    const radius = 40;
+    const centre = { x: vertex.x - radius * Math.sin(turn), y: radius * Math.cos(turn) };
+    for (let a = 0; a <= 90 * DEGREES; a += 1 / radius) curved.push({ x: centre.x + radius * Math.sin(turn + a), y: centre.y - radius * Math.cos(turn + a) });
+    const end = curved[curved.length - 1]!;
+    for (let y = end.y + 1; y < 300; y += 1) curved.push({ x: end.x, y });
+    for (let x = end.x; x > 0; x -= 1) curved.push({ x, y: 300 });
+    for (let y = 300; y > 0; y -= 1) curved.push({ x: 0, y });
+    expect(nearVertex(curved)).toBe(0);
+  });
+
   it('puts the sharp corner where the sides meet, not on the rounded tip (1 px rounding)', () => {
     const { chain } = prepareChain(roundedSquareChain(100, 100, 200, 1));
     const corners = detectCorners(chain, settings);

@@ -289,6 +289,27 @@ describeWithFont('blunted joins of Linux Libertine on a sharp scan at 0.5 px per
   });
 });
 
+describeWithFont('where the diagonal of Cantarell 7 meets its vertical', CANTARELL, () => {
+  let glyphs: GlyphMeasurement[] = [];
+  beforeAll(() => {
+    glyphs = (['clean 1 px/unit', 'clean 0.5 px/unit'] as const).map((variant) => measureRoundTripGlyph('Cantarell Regular', '7', variant));
+  }, 60_000);
+
+  it('draws the 24° corner the font has, not a smooth join that kinks on the grid', () => {
+    // Reference: the font's 7, whose diagonal turns by 24° into a vertical 40 units long
+    // below the top right corner. Under the corner angle of 25° that corner was a smooth
+    // join into a curve taking in the vertical, and rounding left near-miss kinks of 1.9°
+    // (1 px per unit) and 2.7° (0.5 px per unit) there; both sides being straight, it is
+    // now a corner.
+    for (const g of glyphs) {
+      expect(g.recalledCorners, g.variant).toBe(g.fontCorners);
+      expect(g.fittedCorners, g.variant).toBe(g.preciseCorners);
+      expect(g.kinks, g.variant).toBe(0);
+      expect(g.hausdorff, g.variant).toBeLessThanOrEqual(2);
+    }
+  });
+});
+
 describeWithFont('brackets where the bowls of Linux Libertine meet their stems, on a sharp scan at 0.5 px per unit', LIBERTINE, () => {
   let glyphs: readonly GlyphMeasurement[] = [];
   beforeAll(() => {
