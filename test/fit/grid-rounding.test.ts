@@ -311,11 +311,13 @@ describe('rounding sloped lines that run smoothly into curves', () => {
     // continues it within 0.25°; the cubic must still hold the tolerance.
     const joins = results.flatMap((r) => r.joins.map((j) => ({ ...j, name: r.name, held: r.held })));
     const kinks = joins.filter((j) => j.turn >= KINK_MIN_DEGREES && j.turn <= 8);
-    // Measured: 17 of the 108 joins still near-miss kinks, all with 5- or 10-unit handles
-    // whose cubic cannot take a longer one within the tolerance of 1 unit (the
-    // nearest-collinear handle alone: 20).
+    // Where no lattice point on the line fits either, the join slides back along the
+    // line and the cubic takes over the stretch, with a handle longer by as much.
+    // Measured: 13 of the 108 joins still near-miss kinks, where a curve turning hard
+    // within 50 units cannot take a longer handle within the tolerance of 1 unit (17
+    // without the slide, 20 with the nearest-collinear handle alone).
     expect(joins).toHaveLength(108);
-    expect(kinks.length).toBeLessThanOrEqual(17);
+    expect(kinks.length).toBeLessThanOrEqual(13);
   });
 
   it('puts every coordinate on the grid and leaves its input alone', () => {
