@@ -23,12 +23,13 @@ const manifest = await readDemoManifest();
 const shipped = manifest.sheets[0]!;
 
 /**
- * Warnings measured on the shipped sheet when this test was written (70 glyphs):
- * the PNG 3 in all (near-miss kinks on L, R and V), 1,205 segments; the 1-bit TIFF on
- * smoothed boundaries 8 in all, at most 2 on one glyph, 1,515 segments. The
+ * Warnings measured on the shipped sheet (70 glyphs): the PNG 2 in all (B over the
+ * tolerance, a near-miss kink on L), 1,221 segments; the 1-bit TIFF on smoothed
+ * boundaries 6 in all, at most 1 on one glyph, 1,513 segments (when this test was
+ * written: 3 and 8, before the stem and line-join changes of the fitter 6 and 7). The
  * limits sit just above, so a change that makes the demo noticeably noisier fails.
  */
-const WARNING_LIMITS = { png: { inAll: 6, perGlyph: 2 }, tiff: { inAll: 11, perGlyph: 3 } } as const;
+const WARNING_LIMITS = { png: { inAll: 4, perGlyph: 2 }, tiff: { inAll: 9, perGlyph: 3 } } as const;
 
 /**
  * How each copy is traced: both as the app and `stemline build` take them. The 1-bit
