@@ -17,7 +17,8 @@ export interface FitOptions {
   readonly tolerance?: number;
   /**
    * A point where the boundary's tangent turns by more than this many degrees is a
-   * corner. Default {@link DEFAULT_CORNER_ANGLE_DEGREES}.
+   * corner; between two straight sides, from 0.8 of it (corners.ts). Default
+   * {@link DEFAULT_CORNER_ANGLE_DEGREES}.
    */
   readonly cornerAngleDegrees?: number;
   /**

@@ -17,7 +17,7 @@ export const fitOptionSpec = {
 
 export const FIT_OPTIONS_HELP = [
   `--tolerance UNITS              largest distance from the traced ink, in font units (default ${DEFAULT_TOLERANCE}, never under 0.75 px)`,
-  `--corner-angle DEGREES         tangent turns sharper than this are corners (default ${DEFAULT_CORNER_ANGLE_DEGREES})`,
+  `--corner-angle DEGREES         tangent turns sharper than this are corners (default ${DEFAULT_CORNER_ANGLE_DEGREES}; between two straight sides, 0.8 of it)`,
   '--fit-mode economy|smooth      economy: fewest points (default); smooth: curvature-continuous curves for brush and pen work',
   '--fair-joins                   make smooth joins curvature-continuous (G2) where the tolerance allows',
 ];
