@@ -947,7 +947,9 @@ function slideLineJoins(chain: BoundaryChain, contour: FittedContour, joins: Rou
     if (ux * hx + uy * hy <= 0) return 1;
     return Math.abs(ux * hy - uy * hx) / (lu * lh);
   };
-  for (let e = 0; e < n; e++) {
+  // Node 0 is left where it is: the contour starts there, and the chain ranges of the
+  // spans either side of it are counted a lap apart.
+  for (let e = 1; e < n; e++) {
     const node = nodes[e]!;
     const before = spans[prevOf(e)]!.segment;
     const after = spans[e]!.segment;
